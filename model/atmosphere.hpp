@@ -1,0 +1,31 @@
+// atmosphere.hpp — International Standard Atmosphere (ISO 2533:1975 = ICAO Doc 7488 =
+// U.S. Standard Atmosphere 1976 below 32 km), troposphere and lower stratosphere layers,
+// geopotential altitude input. Valid from -2 km to 32 km; the scenario limits altitude to
+// 0..20 km.
+#pragma once
+
+namespace fp {
+
+struct AtmosphereState {
+  double temperature;  // [K]
+  double pressure;     // [Pa]
+  double density;      // [kg/m^3]
+  double sound_speed;  // [m/s]
+};
+
+namespace isa {
+inline constexpr double T0 = 288.15;           // sea-level temperature [K]
+inline constexpr double p0 = 101325.0;         // sea-level pressure [Pa]
+inline constexpr double rho0 = 1.225;          // sea-level density [kg/m^3]
+inline constexpr double R = 287.05287;         // specific gas constant of air [J/(kg K)]
+inline constexpr double gamma = 1.4;           // ratio of specific heats [-]
+inline constexpr double earth_radius = 6356766.0;  // for geopotential altitude [m]
+}  // namespace isa
+
+// ISA at geopotential altitude H [m].
+AtmosphereState isa_at(double H);
+
+// Geopotential altitude [m] from geometric altitude [m] (ISO 2533 eq. 8).
+double geopotential_altitude(double z_geometric);
+
+}  // namespace fp
