@@ -1,0 +1,55 @@
+// cli.cpp — the `floatpitch` command line (CLI11 lives in this file only: it is slow to compile).
+// Parsing only; the work is in commands.cpp. CLI11's own errors exit with status 2.
+#include <CLI/CLI.hpp>
+
+#include "sim/commands.hpp"
+#include "version.hpp"
+
+namespace {
+
+void add_common(CLI::App* sub, fp::cmd::Common& c, bool with_json) {
+  sub->add_option("scenario", c.scenario, "scenario file (TOML)")->required();
+  sub->add_option("--set", c.set, "override a scenario key, KEY=VALUE (repeatable), e.g. --set cg=0.31");
+  if (with_json) sub->add_flag("--json", c.json, "print JSON instead of a table");
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  CLI::App app{"floatpitch: pitch dynamics of a light airplane with its elevator held or free.\n"
+               "An engineering analysis aid, not approved data (see the README's cautions)."};
+  app.set_version_flag("--version", std::string("floatpitch ") + FLOATPITCH_VERSION);
+  app.require_subcommand(1);
+
+  fp::cmd::Common check_o;
+  auto* check = app.add_subcommand("check", "validate a scenario and print the derived quantities a reviewer checks first");
+  add_common(check, check_o, true);
+
+  fp::cmd::TrimOpts trim_o;
+  auto* trim = app.add_subcommand("trim", "trim with the stick held and hands-off");
+  add_common(trim, trim_o.common, true);
+
+  fp::cmd::RunOpts run_o;
+  auto* run = app.add_subcommand("run", "time-domain run with the stick held and free; writes CSV and summary.json");
+  add_common(run, run_o.common, false);
+  run->add_option("--controls", run_o.controls, "which cases to run (default: the scenario's run.controls)")
+      ->check(CLI::IsMember({"held", "free", "both"}));
+  run->add_option("--duration", run_o.duration, "run length [s] (overrides run.duration)")
+      ->check(CLI::Range(0.1, 3600.0));
+  run->add_option("--out", run_o.out, "output directory (default: out)");
+  run->add_flag("--quiet", run_o.quiet, "print nothing on success");
+
+  auto* keys = app.add_subcommand("keys", "print the scenario key reference (markdown)");
+
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    const int rc = app.exit(e);
+    return rc == 0 ? 0 : fp::cmd::kBadInput;
+  }
+  if (*check) return fp::cmd::check(check_o);
+  if (*trim) return fp::cmd::trim(trim_o);
+  if (*run) return fp::cmd::run(run_o);
+  if (*keys) return fp::cmd::keys();
+  return fp::cmd::kBadInput;
+}

@@ -1,0 +1,149 @@
+// commands.cpp — subcommands of `floatpitch` (see commands.hpp).
+#include "commands.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <iostream>
+#include <sstream>
+#include <stdexcept>
+
+#include <nlohmann/json.hpp>
+
+#include "model/linear.hpp"
+#include "model/trim.hpp"
+#include "model/units.hpp"
+#include "sim/atomic_file.hpp"
+#include "sim/outputs.hpp"
+#include "sim/run.hpp"
+#include "sim/scenario.hpp"
+
+namespace fp::cmd {
+
+using nlohmann::json;
+
+namespace {
+
+// Run `body`, mapping the project's error types to messages and exit statuses.
+template <class F>
+int guarded(const std::string& scenario, F&& body) {
+  try {
+    return body();
+  } catch (const ScenarioError& e) {
+    std::cerr << "error: " << e.what() << "\n";
+    return kBadInput;
+  } catch (const TrimError& e) {
+    std::cerr << "error: " << scenario << ": " << e.message << "\n";
+    return kBadInput;
+  } catch (const NumericalFailure& e) {
+    std::cerr << "numerical failure (a failure of the integration, not a result about the airplane) at t = "
+              << e.time << " s: " << e.message << "\n  state:";
+    for (std::size_t i = 0; i < e.state.size(); ++i) std::cerr << " " << state_names[i] << "=" << e.state[i];
+    std::cerr << "\nnothing was written.\n";
+    return kNumerical;
+  } catch (const std::runtime_error& e) {
+    std::cerr << "error: " << e.what() << "\n";
+    return kBadInput;
+  }
+}
+
+}  // namespace
+
+int check(const Common& c) {
+  return guarded(c.scenario, [&] {
+    const Scenario s = load_scenario(c.scenario, c.set);
+    const auto plant = scenario_plant(s);
+    const Airplane& a = s.airplane;
+    const double W = a.mass.mass * units::g0;
+    const double ws = W / a.wing.area;
+    const double AR = a.wing.span * a.wing.span / a.wing.area;
+    const double lt = a.tail.x_ac - a.mass.h_cg * a.wing.mac;
+    const double VH = a.tail.area * (a.tail.x_ac - a.wing.h_ac * a.wing.mac) / (a.wing.area * a.wing.mac);
+    const auto stall = wing_stall(a.wing.lift);
+    const double rho = isa_at(geopotential_altitude(s.condition.altitude)).density;
+    const double Vs = std::sqrt(2.0 * W / (rho * a.wing.area * stall.CLmax));
+    const double xe = a.elevator.mass > 0 ? a.elevator.mass_moment / a.elevator.mass : 0.0;
+    const double G = a.circuit.gearing;
+    const double Ieff = a.elevator.inertia + a.circuit.stick_mass / (G * G);
+    const double qt = a.tail.eta * 0.5 * rho * s.condition.airspeed * s.condition.airspeed;
+    const double Kh = -a.elevator.ch_delta * qt * a.elevator.area * a.elevator.chord;
+    const double wf = Kh > 0 ? std::sqrt(Kh / Ieff) : 0.0;
+    if (c.json) {
+      json j{{"scenario", s.path}, {"name", s.name}, {"wing_loading_N_per_m2", ws},
+             {"wing_loading_kg_per_m2", ws / units::g0}, {"aspect_ratio", AR}, {"mac_m", a.wing.mac},
+             {"tail_volume", VH}, {"tail_arm_from_cg_m", lt}, {"cg_fraction_mac", a.mass.h_cg},
+             {"elevator_static_mass_moment_kg_m", a.elevator.mass_moment},
+             {"elevator_cg_aft_of_hinge_m", xe}, {"cl_max", stall.CLmax},
+             {"alpha_stall_deg", units::to_deg(stall.alpha)}, {"stall_speed_1g_mps", Vs},
+             {"elevator_float_frequency_rad_s", wf}, {"reversible", a.circuit.reversible}};
+      std::cout << j.dump(2) << "\n";
+      return kOk;
+    }
+    std::printf("%s: %s\n", s.path.c_str(), s.name.c_str());
+    std::printf("  wing loading              %.1f N/m2 (%.1f kg/m2, %.2f lb/ft2)\n", ws, ws / units::g0, ws / units::psf);
+    std::printf("  aspect ratio              %.2f\n", AR);
+    std::printf("  mean aerodynamic chord    %.3f m\n", a.wing.mac);
+    std::printf("  tail volume V_H           %.3f (tail arm from wing a.c. %.3f m)\n", VH, a.tail.x_ac - a.wing.h_ac * a.wing.mac);
+    std::printf("  tail arm from CG          %.3f m\n", lt);
+    std::printf("  CG                        %.1f %% MAC (envelope %.1f..%.1f %%)\n", 100 * a.mass.h_cg,
+                100 * s.envelope.cg_forward, 100 * s.envelope.cg_aft);
+    std::printf("  elevator static mass moment %.3f kg m (CG %.1f mm %s the hinge)\n", a.elevator.mass_moment,
+                1000 * std::abs(xe), xe >= 0 ? "aft of" : "ahead of");
+    std::printf("  CLmax / stall angle       %.2f / %.1f deg; 1 g stall speed %.1f m/s (%.1f kt TAS)\n", stall.CLmax,
+                units::to_deg(stall.alpha), Vs, units::to_kt(Vs));
+    std::printf("  elevator float frequency  %.1f rad/s (airframe held, at the condition)\n", wf);
+    std::printf("  circuit                   %s, gearing %.2f rad/m\n", a.circuit.reversible ? "reversible" : "irreversible", G);
+    return kOk;
+  });
+}
+
+int trim(const TrimOpts& o) {
+  return guarded(o.common.scenario, [&] {
+    const Scenario s = load_scenario(o.common.scenario, o.common.set);
+    const auto plant = scenario_plant(s);
+    const Trim held = trim_held(*plant, s.condition, s.trim.tab_auto ? 0.0 : s.trim.tab);
+    std::unique_ptr<Trim> free;
+    if (plant->ap.circuit.reversible) free = std::make_unique<Trim>(trim_free(*plant, s.condition));
+    if (o.common.json) {
+      json j{{"scenario", s.path},
+             {"held", trim_json(held)},
+             {"free", free ? trim_json(*free) : json(nullptr)}};
+      std::cout << j.dump(2) << "\n";
+      return kOk;
+    }
+    std::cout << trim_table(held, s.trim.tab_auto ? "Stick held, tab at 0:" : "Stick held, tab as set:");
+    if (free) std::cout << trim_table(*free, "Hands off (tab for zero stick force):");
+    else std::cout << "No hands-off trim: the circuit is irreversible.\n";
+    return kOk;
+  });
+}
+
+int run(const RunOpts& o) {
+  return guarded(o.common.scenario, [&] {
+    std::vector<std::string> set = o.common.set;
+    if (o.duration >= 0) set.push_back("run.duration=" + std::to_string(o.duration));
+    const Scenario s = load_scenario(o.common.scenario, set);
+    ControlsChoice which = s.run.controls;
+    if (o.controls == "held") which = ControlsChoice::held;
+    else if (o.controls == "free") which = ControlsChoice::free;
+    else if (o.controls == "both") which = ControlsChoice::both;
+    const RunOutcome r = run_scenario(s, which);
+    OutputSet out(o.out);
+    if (r.held) out.add("held.csv", trace_csv(r.held->trace));
+    if (r.free) out.add("free.csv", trace_csv(r.free->trace));
+    out.add("summary.json", summary_json(s, r).dump(2) + "\n");
+    out.commit();
+    if (!o.quiet) {
+      std::cout << s.path << ": " << s.name << "\n\n" << run_table(r);
+      std::cout << "wrote " << o.out << "/{" << (r.held ? "held.csv," : "") << (r.free ? "free.csv," : "")
+                << "summary.json}\n";
+    }
+    return kOk;
+  });
+}
+
+int keys() {
+  std::cout << key_reference_markdown();
+  return kOk;
+}
+
+}  // namespace fp::cmd
