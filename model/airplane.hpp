@@ -19,7 +19,7 @@ struct LiftCurve {
   double slope = 5.0;          // lift-curve slope in the linear range [1/rad] (0.5..10)
   double alpha_zero = 0.0;     // zero-lift angle of attack [rad] (-0.3..0.3)
   double alpha_stall = 0.28;   // angle at which the curve leaves the linear law [rad] (0.05..0.6)
-  double stall_sharpness = 30; // blending sharpness of the stall [1/rad] (5..200)
+  double stall_sharpness = 60; // blending sharpness of the stall [1/rad] (5..200)
   // Optional table of (alpha [rad], CL [-]) pairs; when not empty it replaces the law above
   // (linear interpolation, flat-plate law beyond its ends).
   std::vector<std::pair<double, double>> table;

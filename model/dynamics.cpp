@@ -139,6 +139,29 @@ Plant make_plant(const Airplane& ap) {
   return p;
 }
 
+double circuit_hinge_moment(const Airplane& ap, double de, double ded) {
+  const auto& ci = ap.circuit;
+  const auto& el = ap.elevator;
+  const double G = ci.gearing;
+  double Hc = 0.0;
+  Hc -= ci.damping * ded / (G * G);
+  // Coulomb friction smoothed by tanh over friction_speed at the stick: no true stiction; a
+  // load below the breakout lets the stick creep at about friction_speed * atanh(load/breakout)
+  Hc -= (ci.friction / G) * std::tanh(ded / (G * ci.friction_speed));
+  Hc -= ci.centering * (de - ci.centering_neutral) / (G * G);
+  Hc += ci.downspring / G;
+  // stops: stiff spring-damper contact that can push but never pull
+  if (de > el.delta_max) Hc += std::min(0.0, -ci.stop_stiffness * (de - el.delta_max) - ci.stop_damping * ded);
+  if (de < el.delta_min) Hc += std::max(0.0, -ci.stop_stiffness * (de - el.delta_min) - ci.stop_damping * ded);
+  return Hc;
+}
+
+double steady_hinge_moment(const Plant& p, double H_aero, double de, double n) {
+  const auto& ci = p.ap.circuit;
+  return H_aero + circuit_hinge_moment(p.ap, de, 0.0) + ci.bobweight / ci.gearing * n +
+         p.S_e * std::cos(de) * n * g;
+}
+
 int lag_states(const Plant& p) {
   switch (p.ap.tail.lag) {
     case DownwashLag::none: return 0;
@@ -232,13 +255,7 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
   // circuit, referred to the hinge (see state.hpp: a stick force F adds -F/G)
   const auto& ci = ap.circuit;
   const double G = ci.gearing;
-  double Hc = 0.0;
-  Hc -= ci.damping * ded / (G * G);
-  Hc -= (ci.friction / G) * std::tanh(ded / (G * ci.friction_speed));
-  Hc -= ci.centering * (de - ci.centering_neutral) / (G * G);
-  Hc += ci.downspring / G;
-  if (de > el.delta_max) Hc += std::min(0.0, -ci.stop_stiffness * (de - el.delta_max) - ci.stop_damping * ded);
-  if (de < el.delta_min) Hc += std::max(0.0, -ci.stop_stiffness * (de - el.delta_min) - ci.stop_damping * ded);
+  const double Hc = circuit_hinge_moment(ap, de, ded);
   const double bob = ci.bobweight / G;  // hinge moment per g
 
   double H_pilot = 0.0;

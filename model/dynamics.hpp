@@ -97,6 +97,16 @@ struct Eval {
 void derivatives(const Plant& p, const GustField& gust, const State& x, const Controls& c,
                  double t, State& dxdt, Eval* out = nullptr);
 
+// Hinge moment of the circuit at elevator angle de and rate ded (damping, friction, centering
+// spring, downspring, stops; not the bobweight, which depends on the load factor) [N m].
+double circuit_hinge_moment(const Airplane& ap, double de, double ded);
+
+// Quasi-static hinge moment in steady flight at load factor n (no elevator motion): the
+// aerodynamic hinge moment H_aero plus the circuit's, the bobweight's B n / G and the
+// elevator's own weight about the hinge, S_e cos(de) n g0 (the apparent gravity of steady flight
+// at n g acts along body z). Its zero is the floated elevator of the static analyses [N m].
+double steady_hinge_moment(const Plant& p, double H_aero, double de, double n);
+
 // Number of downwash lag states in use for this plant (0..4).
 int lag_states(const Plant& p);
 

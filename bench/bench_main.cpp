@@ -1,0 +1,58 @@
+// bench_main.cpp — speed figures, printed by Google Benchmark (goals live here, not in tests).
+//   run_pair:   one 60 s held-and-free run of the demo scenario, CSV text included
+//               (goal: under 3 ms for the pair on one core)
+//   derivative: one call of the derivative function (calls per second as a counter)
+// Run: ./build/floatpitch-bench  (add --benchmark_repetitions=10 for medians)
+#include <benchmark/benchmark.h>
+
+#include "model/dynamics.hpp"
+#include "sim/outputs.hpp"
+#include "sim/run.hpp"
+#include "sim/scenario.hpp"
+
+#ifndef FP_SOURCE_DIR
+#define FP_SOURCE_DIR "."
+#endif
+
+namespace {
+
+const fp::Scenario& demo() {
+  static const fp::Scenario s = fp::load_scenario(FP_SOURCE_DIR "/scenarios/wren_gust.toml",
+                                                  {"run.duration=60"});
+  return s;
+}
+
+void run_pair(benchmark::State& st) {
+  const auto& s = demo();
+  long calls = 0;
+  for (auto _ : st) {
+    const fp::RunOutcome r = fp::run_scenario(s, fp::ControlsChoice::both);
+    std::string a = fp::trace_csv(r.held->trace), b = fp::trace_csv(r.free->trace);
+    benchmark::DoNotOptimize(a.data());
+    benchmark::DoNotOptimize(b.data());
+    calls += r.held->stats.derivative_calls + r.free->stats.derivative_calls;
+  }
+  st.counters["derivative_calls_per_pair"] =
+      benchmark::Counter(static_cast<double>(calls) / static_cast<double>(st.iterations()));
+}
+BENCHMARK(run_pair)->Unit(benchmark::kMillisecond);
+
+void derivative(benchmark::State& st) {
+  const auto& s = demo();
+  const auto plant = fp::scenario_plant(s);
+  const fp::Trim t = fp::scenario_trim(*plant, s);
+  fp::Controls c = t.controls;
+  c.stick = fp::Stick::free;
+  const fp::GustField g = fp::scenario_gust_field(s);
+  fp::State d{};
+  for (auto _ : st) {
+    fp::derivatives(*plant, g, t.x, c, 1.0, d);
+    benchmark::DoNotOptimize(d.data());
+  }
+  st.counters["calls_per_s"] = benchmark::Counter(static_cast<double>(st.iterations()), benchmark::Counter::kIsRate);
+}
+BENCHMARK(derivative);
+
+}  // namespace
+
+BENCHMARK_MAIN();
