@@ -130,12 +130,15 @@ std::vector<Mode> modes(const LinearModel& lm) {
       else if (s == sx::de || s == sx::de_dot) sh_e += v;
       else sh_lag += v;
     }
-    if (sh_e > 0.5) m.name = "elevator";
-    else if (sh_lag > 0.5) m.name = "downwash lag";
-    else if (m.oscillatory) m.name = sh_a > sh_u ? "short period" : "phugoid";
-    else if (sh_h > 0.5) m.name = "height";
-    else if (m.root.real() > 0) m.name = sh_u > sh_a + sh_th ? "speed divergence" : "pitch divergence";
-    else if (sh_u > sh_a) m.name = "speed";
+    // the altitude follows the flight path (h' = V (theta - alpha)); the downwash lag follows
+    // alpha: name from the remaining groups
+    const double rest = sh_u + sh_a + sh_lag + sh_th + sh_e;
+    const double su = sh_u / rest, sa = (sh_a + sh_lag) / rest, st = sh_th / rest, se = sh_e / rest;
+    if (se > 0.5) m.name = "elevator";
+    else if (m.oscillatory) m.name = sa > su ? "short period" : "phugoid";
+    else if (sh_h > 0.5 && m.frequency < 0.05) m.name = "height";
+    else if (m.root.real() > 0) m.name = su > sa + st ? "speed divergence" : "pitch divergence";
+    else if (su > 0.5) m.name = "speed";
     else m.name = "pitch subsidence";
     out.push_back(m);
   }

@@ -39,6 +39,30 @@ int main(int argc, char** argv) {
   run->add_option("--out", run_o.out, "output directory (default: out)");
   run->add_flag("--quiet", run_o.quiet, "print nothing on success");
 
+  trim->add_option("--tab-for-elevator", trim_o.tab_for_elevator,
+                   "hands-off: the tab (and speed) that hold this elevator angle [deg]");
+  trim->add_option("--tab-for-alpha", trim_o.tab_for_alpha,
+                   "hands-off: the tab (and speed) that hold this angle of attack [deg]");
+  trim->add_option("--trim-speed-for-tab", trim_o.speed_for_tab, "hands-off trim speed with this tab [deg]");
+
+  fp::cmd::MarginsOpts margins_o;
+  auto* margins = app.add_subcommand("margins", "neutral and maneuver points, margins, stick forces, CG limits");
+  add_common(margins, margins_o.common, true);
+  margins->add_option("--min-margin", margins_o.min_margin, "minimum stick-free static margin for the aft limit [fraction of MAC]")
+      ->check(CLI::Range(0.0, 0.5));
+  margins->add_option("--min-force-per-g", margins_o.min_force_per_g, "minimum stick force per g for the aft limit [N/g]")
+      ->check(CLI::Range(0.0, 1000.0));
+
+  fp::cmd::ForcesOpts forces_o;
+  auto* forces = app.add_subcommand("forces", "stick force against airspeed (tab fixed) and against load factor, as CSV");
+  add_common(forces, forces_o.common, false);
+  forces->add_option("--out", forces_o.out, "FILE.csv (the per-g line goes to FILE_per_g.csv); default: print");
+
+  fp::cmd::ModesOpts modes_o;
+  auto* modes = app.add_subcommand("modes", "linear modes at trim with the stick held and free");
+  add_common(modes, modes_o.common, true);
+  modes->add_option("--matrices", modes_o.matrices, "write the state-space matrices (CSV) to this directory");
+
   auto* keys = app.add_subcommand("keys", "print the scenario key reference (markdown)");
 
   try {
@@ -50,6 +74,9 @@ int main(int argc, char** argv) {
   if (*check) return fp::cmd::check(check_o);
   if (*trim) return fp::cmd::trim(trim_o);
   if (*run) return fp::cmd::run(run_o);
+  if (*margins) return fp::cmd::margins(margins_o);
+  if (*forces) return fp::cmd::forces(forces_o);
+  if (*modes) return fp::cmd::modes(modes_o);
   if (*keys) return fp::cmd::keys();
   return fp::cmd::kBadInput;
 }

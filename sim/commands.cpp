@@ -12,6 +12,7 @@
 #include "model/linear.hpp"
 #include "model/trim.hpp"
 #include "model/units.hpp"
+#include "sim/analysis.hpp"
 #include "sim/atomic_file.hpp"
 #include "sim/outputs.hpp"
 #include "sim/run.hpp"
@@ -100,6 +101,41 @@ int trim(const TrimOpts& o) {
   return guarded(o.common.scenario, [&] {
     const Scenario s = load_scenario(o.common.scenario, o.common.set);
     const auto plant = scenario_plant(s);
+    const bool inverse = !std::isnan(o.tab_for_elevator) || !std::isnan(o.tab_for_alpha) || !std::isnan(o.speed_for_tab);
+    if (inverse && !plant->ap.circuit.reversible)
+      throw ScenarioError{s.path, 0, 0, "circuit.reversible",
+                          "the circuit is irreversible: there is no hands-off trim and the tab carries no stick force"};
+    if (inverse) {
+      TrimRequest r;
+      r.condition = s.condition;
+      const char* title = "";
+      std::string label;
+      if (!std::isnan(o.tab_for_elevator)) {
+        r.fix_elevator = true;
+        r.elevator = o.tab_for_elevator * units::deg;
+        r.solve_speed = true;
+        r.solve_tab = true;
+        title = "Hands-off trim holding the elevator at the given angle (speed and tab solved):";
+      } else if (!std::isnan(o.tab_for_alpha)) {
+        r.fix_alpha = true;
+        r.alpha = o.tab_for_alpha * units::deg;
+        r.solve_speed = true;
+        r.solve_tab = true;
+        title = "Hands-off trim at the given angle of attack (speed and tab solved):";
+      } else {
+        r.tab = o.speed_for_tab * units::deg;
+        r.zero_force = true;
+        r.solve_speed = true;
+        title = "Hands-off trim speed for the given tab:";
+      }
+      const Trim t = fp::trim(*plant, r);
+      if (o.common.json) {
+        std::cout << json{{"scenario", s.path}, {"hands_off", trim_json(t)}}.dump(2) << "\n";
+        return kOk;
+      }
+      std::cout << trim_table(t, title);
+      return kOk;
+    }
     const Trim held = trim_held(*plant, s.condition, s.trim.tab_auto ? 0.0 : s.trim.tab);
     std::unique_ptr<Trim> free;
     if (plant->ap.circuit.reversible) free = std::make_unique<Trim>(trim_free(*plant, s.condition));
@@ -136,6 +172,90 @@ int run(const RunOpts& o) {
       std::cout << s.path << ": " << s.name << "\n\n" << run_table(r);
       std::cout << "wrote " << o.out << "/{" << (r.held ? "held.csv," : "") << (r.free ? "free.csv," : "")
                 << "summary.json}\n";
+    }
+    return kOk;
+  });
+}
+
+int margins(const MarginsOpts& o) {
+  return guarded(o.common.scenario, [&] {
+    const Scenario s = load_scenario(o.common.scenario, o.common.set);
+    if (!s.airplane.circuit.reversible)
+      throw ScenarioError{s.path, 0, 0, "circuit.reversible",
+                          "the circuit is irreversible: there are no stick-free margins (use `modes` for the held case)"};
+    MarginsOptions mo;
+    mo.min_static_margin = o.min_margin;
+    mo.min_force_per_g = o.min_force_per_g;
+    const Margins m = compute_margins(s, mo);
+    if (o.common.json) {
+      json j = margins_json(m);
+      j["scenario"] = s.path;
+      std::cout << j.dump(2) << "\n";
+    } else {
+      std::cout << s.path << ": " << s.name << "\n" << margins_table(m);
+    }
+    return kOk;
+  });
+}
+
+int forces(const ForcesOpts& o) {
+  return guarded(o.common.scenario, [&] {
+    const Scenario s = load_scenario(o.common.scenario, o.common.set);
+    if (!s.airplane.circuit.reversible)
+      throw ScenarioError{s.path, 0, 0, "circuit.reversible", "the circuit is irreversible: the pilot feels no hinge moment"};
+    const Margins m = compute_margins(s);
+    std::ostringstream a, b;
+    a << "airspeed [m/s],airspeed [kt],stick_force [N],elevator [deg],alpha [deg]\n";
+    for (const auto& f : m.curve)
+      a << f.airspeed << "," << units::to_kt(f.airspeed) << "," << f.stick_force << "," << units::to_deg(f.elevator)
+        << "," << units::to_deg(f.alpha) << "\n";
+    const auto plant = scenario_plant(s);
+    b << "load_factor [-],stick_force [N],elevator [deg]\n";
+    for (int i = 0; i <= 12; ++i) {
+      TrimRequest r;
+      r.condition = s.condition;
+      r.tab = m.trim_tab;
+      r.load_factor = 1.0 + 0.25 * i;
+      r.check_limits = false;
+      const Trim t = fp::trim(*plant, r);
+      b << r.load_factor << "," << t.stick_force << "," << units::to_deg(t.de) << "\n";
+    }
+    if (o.out.empty()) {
+      std::cout << "# stick force against airspeed, tab fixed at " << units::to_deg(m.trim_tab) << " deg\n"
+                << a.str() << "\n# stick force against load factor (steady pull-up at the trim speed)\n" << b.str();
+      return kOk;
+    }
+    std::string per_g = o.out;
+    const auto dot = per_g.rfind(".csv");
+    per_g = (dot != std::string::npos ? per_g.substr(0, dot) : per_g) + "_per_g.csv";
+    write_file_atomic(o.out, a.str());
+    write_file_atomic(per_g, b.str());
+    std::cout << "wrote " << o.out << " and " << per_g << "\n";
+    return kOk;
+  });
+}
+
+int modes(const ModesOpts& o) {
+  return guarded(o.common.scenario, [&] {
+    const Scenario s = load_scenario(o.common.scenario, o.common.set);
+    const ModesResult r = compute_modes(s);
+    if (!o.matrices.empty()) {
+      OutputSet out(o.matrices);
+      out.add("A_held.csv", matrix_csv(r.held_lm, false));
+      out.add("B_held.csv", matrix_csv(r.held_lm, true));
+      if (r.has_free) {
+        out.add("A_free.csv", matrix_csv(r.free_lm, false));
+        out.add("B_free.csv", matrix_csv(r.free_lm, true));
+      }
+      out.commit();
+    }
+    if (o.common.json) {
+      json j = modes_json(r);
+      j["scenario"] = s.path;
+      std::cout << j.dump(2) << "\n";
+    } else {
+      std::cout << s.path << ": " << s.name << "\n" << modes_table(r);
+      if (!o.matrices.empty()) std::cout << "wrote the state-space matrices to " << o.matrices << "/\n";
     }
     return kOk;
   });

@@ -4,6 +4,7 @@
 //   3 numerical failure (the integrator failed: not a result about the airplane).
 #pragma once
 
+#include <cmath>
 #include <string>
 #include <vector>
 
@@ -23,6 +24,9 @@ int check(const Common& c);
 
 struct TrimOpts {
   Common common;
+  double tab_for_elevator = NAN;   // [deg]: tab that holds this elevator hands-off (speed solved)
+  double tab_for_alpha = NAN;      // [deg]: tab that holds this angle of attack hands-off
+  double speed_for_tab = NAN;      // [deg]: hands-off trim speed with this tab
 };
 int trim(const TrimOpts& o);
 
@@ -34,6 +38,25 @@ struct RunOpts {
   bool quiet = false;
 };
 int run(const RunOpts& o);
+
+struct MarginsOpts {
+  Common common;
+  double min_margin = 0.05;        // [-] for the aft CG limit
+  double min_force_per_g = 13.3;   // [N/g] for the aft CG limit (3 lbf/g)
+};
+int margins(const MarginsOpts& o);
+
+struct ForcesOpts {
+  Common common;
+  std::string out;                 // FILE.csv (FILE_per_g.csv beside it); empty: print
+};
+int forces(const ForcesOpts& o);
+
+struct ModesOpts {
+  Common common;
+  std::string matrices;            // directory for the state-space CSVs; empty: none
+};
+int modes(const ModesOpts& o);
 
 int keys();
 

@@ -54,9 +54,9 @@ struct RunSettings {
   double output_step = 0.01;     // output grid step [s] (1e-4..10)
   double rel_tol = 1e-8;         // integrator relative tolerance [-] (1e-12..1e-3)
   double abs_tol = 1e-9;         // integrator absolute tolerance (1e-14..1e-3)
-  double alpha_limit = 0.6;      // |alpha| beyond which the airplane has departed [rad] (0.1..1.5)
+  double alpha_limit = 0.35;     // |alpha| beyond which the airplane has departed [rad] (0.1..1.5)
   double q_limit = 2.0;          // |q| beyond which the airplane has departed [rad/s] (0.1..10)
-  double min_airspeed_ratio = 0.3; // airspeed below this fraction of trim = departed [-] (0.05..0.95)
+  double min_airspeed_ratio = 0.5; // airspeed below this fraction of trim = departed [-] (0.05..0.95)
   ControlsChoice controls = ControlsChoice::both;
   double let_go_time = 0.0;      // free case: time the pilot lets go [s] (0..duration)
 };
