@@ -63,6 +63,25 @@ int main(int argc, char** argv) {
   add_common(modes, modes_o.common, true);
   modes->add_option("--matrices", modes_o.matrices, "write the state-space matrices (CSV) to this directory");
 
+  fp::cmd::SweepOpts sweep_o;
+  auto* sweep = app.add_subcommand("sweep", "vary or sample scenario keys; trim, margins, modes (and runs) at each point");
+  add_common(sweep, sweep_o.common, false);
+  sweep->add_option("--vary", sweep_o.vary, "KEY=FROM:TO:STEP (repeat once for a grid), e.g. cg=0.30:0.42:0.005");
+  sweep->add_option("--sample", sweep_o.sample, "KEY=normal(MEAN,SD) or KEY=uniform(LO,HI) (repeatable)");
+  sweep->add_option("--samples", sweep_o.samples, "number of random samples")->check(CLI::Range(1, 1000000));
+  sweep->add_option("--seed", sweep_o.seed, "random seed (same seed, same samples)");
+  sweep->add_option("--run", sweep_o.run, "also run each point held and free for this many seconds")
+      ->check(CLI::Range(0.0, 3600.0));
+  sweep->add_option("--jobs", sweep_o.jobs, "threads (default: the number of cores)")->check(CLI::Range(1, 256));
+  sweep->add_option("--out", sweep_o.out, "output directory (default: sweep)");
+  sweep->add_option("--shard", sweep_o.shard, "K/N: run only the points i with i % N == K (join with merge)");
+
+  fp::cmd::MergeOpts merge_o;
+  auto* merge = app.add_subcommand("merge", "join the shards of a sweep (their output directories)");
+  merge->add_option("dirs", merge_o.dirs, "shard output directories")->required();
+  merge->add_option("--out", merge_o.out, "output directory (default: merged)");
+  merge->add_option("--jobs", merge_o.jobs, "threads for the boundary refinement")->check(CLI::Range(1, 256));
+
   auto* keys = app.add_subcommand("keys", "print the scenario key reference (markdown)");
 
   try {
@@ -77,6 +96,8 @@ int main(int argc, char** argv) {
   if (*margins) return fp::cmd::margins(margins_o);
   if (*forces) return fp::cmd::forces(forces_o);
   if (*modes) return fp::cmd::modes(modes_o);
+  if (*sweep) return fp::cmd::sweep(sweep_o);
+  if (*merge) return fp::cmd::merge(merge_o);
   if (*keys) return fp::cmd::keys();
   return fp::cmd::kBadInput;
 }

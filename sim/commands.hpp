@@ -58,6 +58,26 @@ struct ModesOpts {
 };
 int modes(const ModesOpts& o);
 
+struct SweepOpts {
+  Common common;
+  std::vector<std::string> vary;    // KEY=FROM:TO:STEP
+  std::vector<std::string> sample;  // KEY=normal(M,SD) | KEY=uniform(LO,HI)
+  int samples = 0;
+  unsigned long seed = 1;
+  double run = 0;                   // seconds of time-domain run per point (0: none)
+  int jobs = 0;                     // 0: the number of cores
+  std::string out = "sweep";
+  std::string shard;                // "K/N"
+};
+int sweep(const SweepOpts& o);
+
+struct MergeOpts {
+  std::vector<std::string> dirs;
+  std::string out = "merged";
+  int jobs = 0;
+};
+int merge(const MergeOpts& o);
+
 int keys();
 
 }  // namespace fp::cmd

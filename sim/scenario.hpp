@@ -122,6 +122,10 @@ void set_value(Scenario& s, const std::string& key, double si_value, const std::
 // The SI value of a numeric key (throws ScenarioError for an unknown or non-numeric key).
 double get_value(const Scenario& s, const std::string& key);
 
+// A value for a numeric key written as text ("0.31", "110 kt", "-0.005 /deg") in SI, with the
+// same unit rules as the files; `origin` names where it came from. Throws ScenarioError.
+double parse_quantity(const std::string& key, const std::string& text, const std::string& origin);
+
 // Check the relations between keys (stops in order, CG envelope, airframe inertia, ...) and
 // throw ScenarioError naming the keys. load/parse call it; call it after set_value.
 void validate(const Scenario& s);
