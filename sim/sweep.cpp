@@ -272,9 +272,9 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
     const auto plant = scenario_plant(s);
     const Trim t = scenario_trim(*plant, s);
     r.cg = s.airplane.mass.h_cg;
-    r.trim_alpha = t.alpha;
-    r.trim_elevator = t.de;
-    r.trim_tab = t.tab;
+    r.trim_alpha_deg = units::to_deg(t.alpha);
+    r.trim_elevator_deg = units::to_deg(t.de);
+    r.trim_tab_deg = units::to_deg(t.tab);
     const ClosedForm cf = closed_form(s.airplane, s.condition);
     r.np_fixed_cf = cf.np_fixed;
     r.np_free_cf = cf.np_free;
@@ -314,11 +314,11 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
         dn = da = 0.0;
         for (std::size_t i = 0; i < cr->trace.size(); ++i) {
           dn = std::max(dn, std::abs(cr->trace.ch[ch_load_factor][i] - 1.0));
-          da = std::max(da, std::abs(cr->trace.ch[ch_alpha][i] - t.alpha));
+          da = std::max(da, units::to_deg(std::abs(cr->trace.ch[ch_alpha][i] - t.alpha)));
         }
       };
-      fill(o.held.get(), r.diverged_held, r.divergence_time_held, r.peak_dn_held, r.peak_dalpha_held);
-      fill(o.free.get(), r.diverged_free, r.divergence_time_free, r.peak_dn_free, r.peak_dalpha_free);
+      fill(o.held.get(), r.diverged_held, r.divergence_time_held, r.peak_dn_held, r.peak_dalpha_held_deg);
+      fill(o.free.get(), r.diverged_free, r.divergence_time_free, r.peak_dn_free, r.peak_dalpha_free_deg);
       r.growth_held = time_domain_growth(s, false, run_seconds);
       r.growth_free = rev ? time_domain_growth(s, true, run_seconds) : nan_;
     }
@@ -476,15 +476,14 @@ const char* kColumns[] = {"index", "ok", "reason", "cg", "trim_alpha_deg", "trim
 json point_json(const PointResult& p, const std::vector<std::string>& keys) {
   json in = json::object();
   for (std::size_t i = 0; i < keys.size() && i < p.inputs.size(); ++i) in[keys[i]] = p.inputs[i];
-  const double d = 1.0 / units::deg;
   return json{{"index", p.index},
               {"inputs", in},
               {"ok", p.ok},
               {"reason", p.ok ? json(nullptr) : json(p.reason)},
               {"cg", num(p.cg)},
-              {"trim_alpha_deg", num(p.trim_alpha * d)},
-              {"trim_elevator_deg", num(p.trim_elevator * d)},
-              {"trim_tab_deg", num(p.trim_tab * d)},
+              {"trim_alpha_deg", num(p.trim_alpha_deg)},
+              {"trim_elevator_deg", num(p.trim_elevator_deg)},
+              {"trim_tab_deg", num(p.trim_tab_deg)},
               {"np_fixed_closed_form", num(p.np_fixed_cf)},
               {"np_free_closed_form", num(p.np_free_cf)},
               {"np_apparent_closed_form", num(p.np_apparent_cf)},
@@ -506,23 +505,22 @@ json point_json(const PointResult& p, const std::vector<std::string>& keys) {
               {"divergence_time_free_s", num(p.divergence_time_free)},
               {"peak_dn_held", p.ran ? num(p.peak_dn_held) : json(nullptr)},
               {"peak_dn_free", p.ran ? num(p.peak_dn_free) : json(nullptr)},
-              {"peak_dalpha_held_deg", p.ran ? num(p.peak_dalpha_held * d) : json(nullptr)},
-              {"peak_dalpha_free_deg", p.ran ? num(p.peak_dalpha_free * d) : json(nullptr)},
+              {"peak_dalpha_held_deg", p.ran ? num(p.peak_dalpha_held_deg) : json(nullptr)},
+              {"peak_dalpha_free_deg", p.ran ? num(p.peak_dalpha_free_deg) : json(nullptr)},
               {"growth_held_per_s", p.ran ? num(p.growth_held) : json(nullptr)},
               {"growth_free_per_s", p.ran ? num(p.growth_free) : json(nullptr)}};
 }
 
 PointResult point_from_json(const json& j, const std::vector<std::string>& keys) {
   PointResult p;
-  const double r = units::deg;
   p.index = j.at("index").get<long>();
   for (const auto& k : keys) p.inputs.push_back(val(j.at("inputs").at(k)));
   p.ok = j.at("ok").get<bool>();
   if (!p.ok) p.reason = j.at("reason").get<std::string>();
   p.cg = val(j["cg"]);
-  p.trim_alpha = val(j["trim_alpha_deg"]) * r;
-  p.trim_elevator = val(j["trim_elevator_deg"]) * r;
-  p.trim_tab = val(j["trim_tab_deg"]) * r;
+  p.trim_alpha_deg = val(j["trim_alpha_deg"]);
+  p.trim_elevator_deg = val(j["trim_elevator_deg"]);
+  p.trim_tab_deg = val(j["trim_tab_deg"]);
   p.np_fixed_cf = val(j["np_fixed_closed_form"]);
   p.np_free_cf = val(j["np_free_closed_form"]);
   p.np_apparent_cf = val(j["np_apparent_closed_form"]);
@@ -543,8 +541,8 @@ PointResult point_from_json(const json& j, const std::vector<std::string>& keys)
     p.divergence_time_free = val(j["divergence_time_free_s"]);
     p.peak_dn_held = val(j["peak_dn_held"]);
     p.peak_dn_free = val(j["peak_dn_free"]);
-    p.peak_dalpha_held = val(j["peak_dalpha_held_deg"]) * r;
-    p.peak_dalpha_free = val(j["peak_dalpha_free_deg"]) * r;
+    p.peak_dalpha_held_deg = val(j["peak_dalpha_held_deg"]);
+    p.peak_dalpha_free_deg = val(j["peak_dalpha_free_deg"]);
     p.growth_held = val(j["growth_held_per_s"]);
     p.growth_free = val(j["growth_free_per_s"]);
   }

@@ -64,7 +64,7 @@ struct PointResult {
   std::vector<double> inputs;        // SI values of the varied/sampled keys
   bool ok = false;
   std::string reason;                // when not ok
-  double trim_alpha = 0, trim_elevator = 0, trim_tab = 0;  // [rad]
+  double trim_alpha_deg = 0, trim_elevator_deg = 0, trim_tab_deg = 0;  // [deg] (kept in the file's unit)
   double np_fixed_cf = 0, np_free_cf = 0, np_apparent_cf = 0, np_fixed = 0, np_free = 0;
   double cg = 0;
   double force_gradient = 0;         // [N/(m/s)] model, tab fixed
@@ -75,7 +75,7 @@ struct PointResult {
   bool diverged_held = false, diverged_free = false;
   double divergence_time_held = 0, divergence_time_free = 0;  // NaN when none
   double peak_dn_held = 0, peak_dn_free = 0;          // max |n - 1|
-  double peak_dalpha_held = 0, peak_dalpha_free = 0;  // max |alpha - alpha_trim| [rad]
+  double peak_dalpha_held_deg = 0, peak_dalpha_free_deg = 0;  // max |alpha - alpha_trim| [deg]
   double growth_held = 0, growth_free = 0;            // matrix-pencil rate [1/s]
 };
 
