@@ -9,6 +9,7 @@
 #include "sim/outputs.hpp"
 #include "sim/run.hpp"
 #include "sim/scenario.hpp"
+#include "sim/sweep.hpp"
 
 #ifndef FP_SOURCE_DIR
 #define FP_SOURCE_DIR "."
@@ -37,6 +38,16 @@ void run_pair(benchmark::State& st) {
 }
 BENCHMARK(run_pair)->Unit(benchmark::kMillisecond);
 
+// The same pair without writing the CSV text (integration and output rows only).
+void run_pair_no_csv(benchmark::State& st) {
+  const auto& s = demo();
+  for (auto _ : st) {
+    const fp::RunOutcome r = fp::run_scenario(s, fp::ControlsChoice::both);
+    benchmark::DoNotOptimize(r.held->trace.size());
+  }
+}
+BENCHMARK(run_pair_no_csv)->Unit(benchmark::kMillisecond);
+
 void derivative(benchmark::State& st) {
   const auto& s = demo();
   const auto plant = fp::scenario_plant(s);
@@ -52,6 +63,25 @@ void derivative(benchmark::State& st) {
   st.counters["calls_per_s"] = benchmark::Counter(static_cast<double>(st.iterations()), benchmark::Counter::kIsRate);
 }
 BENCHMARK(derivative);
+
+// A CG sweep of 100 points with trim, margins, modes and a 30 s held-and-free run each, on the
+// machine's cores (goal: under 1 s on 2 cores). Args: jobs, and 1 to include the refinement of
+// the three-way divergence boundary (eigenvalue and time-domain bisections) on top.
+void cg_sweep_100(benchmark::State& st) {
+  fp::SweepSpec spec;
+  spec.scenario = FP_SOURCE_DIR "/scenarios/wren_gust.toml";
+  const fp::Scenario base = fp::load_scenario(spec.scenario);
+  spec.vary.push_back(fp::parse_vary(base, "cg=0.20:0.3980:0.002"));
+  spec.run_seconds = 30.0;
+  spec.find_boundary = st.range(1) != 0;
+  const int jobs = static_cast<int>(st.range(0));
+  for (auto _ : st) {
+    fp::SweepResult r = fp::run_sweep(spec, jobs, false);
+    benchmark::DoNotOptimize(r.points.data());
+    st.counters["points"] = static_cast<double>(r.points.size());
+  }
+}
+BENCHMARK(cg_sweep_100)->Args({1, 0})->Args({2, 0})->Args({2, 1})->Unit(benchmark::kMillisecond)->UseRealTime();
 
 }  // namespace
 

@@ -36,7 +36,26 @@ struct Lhs {
   double fx, fz, m, h;
 };
 
-Lhs inertial_side(const Plant& p, double q, double de, double ded, V2 aO, double al, double be,
+// Elevator geometry at the current deflection, computed once per derivative call.
+struct ElevGeom {
+  V2 rho{0, 0};   // hinge to elevator CG (body axes) [m]
+  V2 drho{0, 0};  // d rho / d de [m/rad]
+  V2 re{0, 0};    // elevator CG from O [m]
+};
+
+ElevGeom elevator_geometry(const Plant& p, double de) {
+  ElevGeom g;
+  if (p.m_e > 0.0) {
+    const double c = std::cos(de), s = std::sin(de);
+    const double xe = p.S_e / p.m_e;  // hinge to elevator CG, aft positive [m]
+    g.rho = {-xe * c, xe * s};
+    g.drho = {xe * s, xe * c};
+    g.re = V2{p.rH_x, p.rH_z} + g.rho;
+  }
+  return g;
+}
+
+Lhs inertial_side(const Plant& p, const ElevGeom& eg, double q, double ded, V2 aO, double al, double be,
                   double bob_per_n, V2 gvec) {
   Lhs L{};
   // airframe
@@ -47,12 +66,7 @@ Lhs inertial_side(const Plant& p, double q, double de, double ded, V2 aO, double
   L.m = p.I_B * al + p.m_B * cross(rB, aB);
   L.h = (p.I_ecg + p.I_c) * be + p.I_ecg * al;
   if (p.m_e > 0.0) {
-    const double c = std::cos(de), s = std::sin(de);
-    const double xe = p.S_e / p.m_e;            // hinge to elevator CG, aft positive [m]
-    const V2 rho{-xe * c, xe * s};              // hinge to elevator CG (body axes)
-    const V2 drho{xe * s, xe * c};              // d rho / d de
-    const V2 rH{p.rH_x, p.rH_z};
-    const V2 re = rH + rho;
+    const V2 rho = eg.rho, drho = eg.drho, re = eg.re;
     // a_e = rigid acceleration of the point re + relative: be drho - ded^2 rho + 2 q x (ded drho)
     V2 ae = point_accel(aO, al, q, re);
     ae = ae + be * drho - (ded * ded) * rho + V2{2.0 * q * ded * drho.z, -2.0 * q * ded * drho.x};
@@ -61,7 +75,6 @@ Lhs inertial_side(const Plant& p, double q, double de, double ded, V2 aO, double
     L.m += p.I_ecg * (al + be) + p.m_e * cross(re, ae);
     L.h += p.m_e * cross(rho, ae);
   }
-  (void)gvec;
   // bobweight: hinge moment +B n / G with n = -(a_z - g_z)/g0 at O
   const double n = -(aO.z - gvec.z) / g;
   L.h -= bob_per_n * n;
@@ -244,8 +257,9 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
     const auto& pr = ap.propulsion;
     const double sigma = rho / isa::rho0;
     const double Vr = std::max(e.V, 0.3 * pr.reference_speed) / pr.reference_speed;
-    e.thrust = ctl.throttle * pr.max_thrust * std::pow(sigma, pr.density_exponent) *
-               std::pow(Vr, pr.speed_exponent);
+    const double fs = pr.density_exponent == 1.0 ? sigma : std::pow(sigma, pr.density_exponent);
+    const double fv = pr.speed_exponent == 0.0 ? 1.0 : std::pow(Vr, pr.speed_exponent);
+    e.thrust = ctl.throttle * pr.max_thrust * fs * fv;
     const V2 Ft{e.thrust * std::cos(pr.angle), -e.thrust * std::sin(pr.angle)};
     e.X += Ft.x;
     e.Z += Ft.z;
@@ -268,18 +282,20 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
   }
 
   // external side
-  const V2 D = p.m_e > 0 ? V2{p.S_e * (1.0 - std::cos(de)), p.S_e * std::sin(de)} : V2{0, 0};
-  const V2 Srho{-p.S_e * std::cos(de), p.S_e * std::sin(de)};
+  const double cde = std::cos(de), sde = std::sin(de);
+  const V2 D = p.m_e > 0 ? V2{p.S_e * (1.0 - cde), p.S_e * sde} : V2{0, 0};
+  const V2 Srho{-p.S_e * cde, p.S_e * sde};
   const double Fx = e.X + p.m * gvec.x;
   const double Fz = e.Z + p.m * gvec.z;
   const double Mext = e.M + cross(D, gvec);
   const double Hext = e.H_aero + Hc + H_pilot + cross(Srho, gvec);
 
   // The inertial side is affine in (aOx, aOz, al, be): build the matrix from unit probes.
-  const auto L0 = inertial_side(p, q, de, ded, {0, 0}, 0, 0, bob, gvec);
-  const auto Lx = inertial_side(p, q, de, ded, {1, 0}, 0, 0, bob, gvec);
-  const auto Lz = inertial_side(p, q, de, ded, {0, 1}, 0, 0, bob, gvec);
-  const auto La = inertial_side(p, q, de, ded, {0, 0}, 1, 0, bob, gvec);
+  const ElevGeom eg = elevator_geometry(p, de);
+  const auto L0 = inertial_side(p, eg, q, ded, {0, 0}, 0, 0, bob, gvec);
+  const auto Lx = inertial_side(p, eg, q, ded, {1, 0}, 0, 0, bob, gvec);
+  const auto Lz = inertial_side(p, eg, q, ded, {0, 1}, 0, 0, bob, gvec);
+  const auto La = inertial_side(p, eg, q, ded, {0, 0}, 1, 0, bob, gvec);
   double aOx, aOz, al, be = 0.0;
   if (rigid_hold) {
     Eigen::Matrix3d A;
@@ -292,10 +308,10 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
     aOz = s(1);
     al = s(2);
     // the hinge equation gives the pilot's hinge moment, hence the stick force
-    const auto Ls = inertial_side(p, q, de, ded, {aOx, aOz}, al, 0.0, bob, gvec);
+    const auto Ls = inertial_side(p, eg, q, ded, {aOx, aOz}, al, 0.0, bob, gvec);
     H_pilot = Ls.h - (e.H_aero + Hc + cross(Srho, gvec));
   } else {
-    const auto Lb = inertial_side(p, q, de, ded, {0, 0}, 0, 1, bob, gvec);
+    const auto Lb = inertial_side(p, eg, q, ded, {0, 0}, 0, 1, bob, gvec);
     Eigen::Matrix4d A;
     A << Lx.fx - L0.fx, Lz.fx - L0.fx, La.fx - L0.fx, Lb.fx - L0.fx,
          Lx.fz - L0.fz, Lz.fz - L0.fz, La.fz - L0.fz, Lb.fz - L0.fz,

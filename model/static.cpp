@@ -3,6 +3,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 #include <limits>
 
 #include "units.hpp"
@@ -234,8 +235,12 @@ CgLimits cg_limits(const Airplane& ap, const Condition& c, const CgLimitOptions&
         return trim(p, r).de - de_min;
       },
       ap.mass.h_cg - 0.1);
-  L.forward.reason = "elevator power: trimming at " + std::to_string(units::to_kt(o.min_speed)).substr(0, 5) +
-                     " kt at sea level needs the elevator at its trailing-edge-up stop";
+  char why[200];
+  std::snprintf(why, sizeof why,
+                "elevator power: trimmed at %.1f kt at sea level (flare near the stall), the elevator reaches "
+                "its trailing-edge-up stop",
+                units::to_kt(o.min_speed));
+  L.forward.reason = why;
   // aft: stick-free neutral point from the model (aerodynamic, tab re-trimmed at each CG)
   auto np_free_at = [&](const Plant& p) {
     const Trim t = trim_free(p, c);

@@ -110,7 +110,7 @@ struct CgLimits {
   CgLimit aft_force_per_g;         // a minimum stick force per g
 };
 struct CgLimitOptions {
-  double min_speed = 0;            // slowest speed for the forward limit [m/s]
+  double min_speed = 0;            // speed of the forward-limit trim (e.g. 1.1 Vs, a flare) [m/s]
   double min_static_margin = 0.05; // [-] fraction of MAC
   double min_force_per_g = 13.3;   // [N/g]
 };

@@ -133,7 +133,10 @@ Margins compute_margins(const Scenario& s, const MarginsOptions& o) {
     m.free_return_high = speed_for_force(p, c, tf.tab, -Ff, c.airspeed, std::min(m.speed_hi, 2.0 * c.airspeed));
   }
   CgLimitOptions lo;
-  lo.min_speed = m.speed_lo;
+  // forward limit: flared near the stall, 1.1 Vs at sea level (no ground effect in the model,
+  // which would ask for still more up elevator)
+  const double Vs0 = std::sqrt(2.0 * p.m * units::g0 / (isa::rho0 * s.airplane.wing.area * wing_stall(s.airplane.wing.lift).CLmax));
+  lo.min_speed = 1.1 * Vs0;
   lo.min_static_margin = o.min_static_margin;
   lo.min_force_per_g = o.min_force_per_g;
   m.limits = cg_limits(s.airplane, c, lo);

@@ -1,6 +1,7 @@
 // outputs.cpp — CSV and JSON writers, terminal tables (see outputs.hpp).
 #include "outputs.hpp"
 
+#include <charconv>
 #include <cmath>
 #include <cstdio>
 #include <sstream>
@@ -30,12 +31,15 @@ std::string trace_csv(const Trace& tr) {
     out += ci.unit;
     out += c + 1 < ch_count ? "]," : "]\n";
   }
+  // std::to_chars: shortest exact text (time, 4 decimals) or 7 significant digits, and several
+  // times faster than printf-style formatting for long runs
   char buf[40];
   for (std::size_t i = 0; i < tr.size(); ++i) {
     for (std::size_t c = 0; c < ch_count; ++c) {
       const double v = tr.ch[c][i] * channel_info(c).display;
-      const int n = std::snprintf(buf, sizeof buf, c == ch_time ? "%.4f" : "%.7g", v);
-      out.append(buf, static_cast<std::size_t>(n));
+      const auto r = c == ch_time ? std::to_chars(buf, buf + sizeof buf, v, std::chars_format::fixed, 4)
+                                  : std::to_chars(buf, buf + sizeof buf, v, std::chars_format::general, 7);
+      out.append(buf, r.ptr);
       out += c + 1 < ch_count ? ',' : '\n';
     }
   }
