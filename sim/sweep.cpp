@@ -429,7 +429,7 @@ SweepResult run_sweep(const SweepSpec& spec, int jobs, bool progress) {
         evaluate_point(base, r.input_keys, grid[static_cast<std::size_t>(i)], spec.run_seconds, i);
     pr.tick();
   });
-  if (spec.shard_n == 1) compute_boundary(r, jobs);
+  if (spec.shard_n == 1 && spec.find_boundary) compute_boundary(r, jobs);
   return r;
 }
 

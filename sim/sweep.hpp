@@ -51,6 +51,7 @@ struct SweepSpec {
   double run_seconds = 0;            // 0: no time-domain run per point
   double boundary_run_seconds = 120; // runs for the time-domain boundary (at least this long)
   int shard_k = 0, shard_n = 1;
+  bool find_boundary = true;         // refine the divergence boundary when the CG is varied
 };
 
 // Parse "KEY=FROM:TO:STEP" (values may carry units: "cg=0.30:0.42:0.005",
