@@ -17,7 +17,7 @@ echo "== tests (release)"
 
 if [[ "${FLOATPITCH_QUICK:-0}" != 1 ]]; then
   echo "== tests (address + undefined-behaviour sanitizers)"
-  cmake -S . -B build-asan -DCMAKE_BUILD_TYPE=RelWithDebInfo -DFLOATPITCH_SANITIZE=ON \
+  cmake -S . -B build-asan -DCMAKE_BUILD_TYPE=RelWithDebInfo -DFLOATPITCH_SANITIZE=ON -DFLOATPITCH_WINDOW=OFF \
         -DFLOATPITCH_BENCH=OFF > build-asan.log 2>&1 || { cat build-asan.log; exit 1; }
   cmake --build build-asan -j$jobs >> build-asan.log 2>&1 || { tail -80 build-asan.log; exit 1; }
   (cd build-asan && ASAN_OPTIONS=detect_leaks=0 UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
