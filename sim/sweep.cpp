@@ -19,6 +19,7 @@
 #include "model/static.hpp"
 #include "model/units.hpp"
 #include "sim/outputs.hpp"
+#include "sim/parallel.hpp"
 #include "sim/run.hpp"
 #include "sim/signal.hpp"
 
@@ -57,51 +58,6 @@ struct SplitMix {
     return std::sqrt(-2.0 * std::log(u1)) * std::cos(2.0 * std::numbers::pi * u2);
   }
 };
-
-struct Progress {
-  bool enabled, tty;
-  long total;
-  std::atomic<long> done{0};
-  std::chrono::steady_clock::time_point t0 = std::chrono::steady_clock::now();
-  long last_printed = -1;
-  std::mutex m;
-  Progress(bool en, long n) : enabled(en), tty(::isatty(2) != 0), total(n) {}
-  void tick() {
-    if (!enabled) {
-      ++done;
-      return;
-    }
-    std::lock_guard<std::mutex> lk(m);
-    const long d = ++done;
-    const double el = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
-    const double rate = el > 0 ? d / el : 0.0;
-    const double left = rate > 0 ? (total - d) / rate : 0.0;
-    if (tty) {
-      const int w = 30, f = total > 0 ? static_cast<int>(w * d / total) : w;
-      std::fprintf(stderr, "\r[%s%s] %ld/%ld points  %.1f/s  %.1f s left ", std::string(f, '#').c_str(),
-                   std::string(w - f, '.').c_str(), d, total, rate, left);
-      if (d == total) std::fprintf(stderr, "\n");
-    } else {
-      const long step = std::max(1L, total / 10);
-      if (d == total || d / step != last_printed / step) {
-        std::fprintf(stderr, "sweep: %ld/%ld points, %.1f points/s, %.1f s left\n", d, total, rate, left);
-        last_printed = d;
-      }
-    }
-  }
-};
-
-template <class F>
-void parallel_for(long n, int jobs, F&& f) {
-  std::atomic<long> next{0};
-  auto worker = [&] {
-    for (long i = next++; i < n; i = next++) f(i);
-  };
-  std::vector<std::thread> pool;
-  for (int k = 1; k < std::min<long>(jobs, n); ++k) pool.emplace_back(worker);
-  worker();
-  for (auto& t : pool) t.join();
-}
 
 // Time after which the scenario's disturbances are over: gusts passed, events done [s].
 double disturbance_end(const Scenario& s) {

@@ -1,0 +1,70 @@
+// parallel.hpp — a small thread pool loop and a progress bar, shared by sweeps and by the
+// multi-seed turbulence runs.
+//
+// parallel_for(n, jobs, f) calls f(i) for i = 0..n-1 on up to `jobs` threads (the caller's
+// thread included), handing out indices one at a time, so results written to slot i do not
+// depend on the thread count or the order. Progress prints a bar on a terminal (stderr), or a
+// line every tenth of the work otherwise; tick() is thread-safe.
+#pragma once
+
+#include <algorithm>
+#include <atomic>
+#include <chrono>
+#include <cstdio>
+#include <mutex>
+#include <string>
+#include <thread>
+#include <unistd.h>
+#include <vector>
+
+namespace fp {
+
+struct Progress {
+  bool enabled, tty;
+  long total;
+  std::atomic<long> done{0};
+  std::chrono::steady_clock::time_point t0 = std::chrono::steady_clock::now();
+  long last_printed = -1;
+  std::mutex m;
+  const char* unit;   // what is counted ("points", "runs")
+  const char* label;  // prefix of the non-terminal lines ("sweep", "seeds")
+  Progress(bool en, long n, const char* unit_ = "points", const char* label_ = "sweep")
+      : enabled(en), tty(::isatty(2) != 0), total(n), unit(unit_), label(label_) {}
+  void tick() {
+    if (!enabled) {
+      ++done;
+      return;
+    }
+    std::lock_guard<std::mutex> lk(m);
+    const long d = ++done;
+    const double el = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+    const double rate = el > 0 ? d / el : 0.0;
+    const double left = rate > 0 ? (total - d) / rate : 0.0;
+    if (tty) {
+      const int w = 30, f = total > 0 ? static_cast<int>(w * d / total) : w;
+      std::fprintf(stderr, "\r[%s%s] %ld/%ld %s  %.1f/s  %.1f s left ", std::string(f, '#').c_str(),
+                   std::string(w - f, '.').c_str(), d, total, unit, rate, left);
+      if (d == total) std::fprintf(stderr, "\n");
+    } else {
+      const long step = std::max(1L, total / 10);
+      if (d == total || d / step != last_printed / step) {
+        std::fprintf(stderr, "%s: %ld/%ld %s, %.1f %s/s, %.1f s left\n", label, d, total, unit, rate, unit, left);
+        last_printed = d;
+      }
+    }
+  }
+};
+
+template <class F>
+void parallel_for(long n, int jobs, F&& f) {
+  std::atomic<long> next{0};
+  auto worker = [&] {
+    for (long i = next++; i < n; i = next++) f(i);
+  };
+  std::vector<std::thread> pool;
+  for (int k = 1; k < std::min<long>(jobs, n); ++k) pool.emplace_back(worker);
+  worker();
+  for (auto& t : pool) t.join();
+}
+
+}  // namespace fp
