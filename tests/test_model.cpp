@@ -264,3 +264,27 @@ TEST_CASE("output grid does not depend on the solver's steps") {
   CHECK(peak[0] > 1.3);  // the gust did something
   CHECK(peak[0] == Approx(peak[1]).epsilon(1e-4));
 }
+
+TEST_CASE("a numerical failure is reported as such, never as a departure") {
+  // style.md rule 7: a failure of the integration stops the run with a structured reason. An
+  // absurdly stiff stop contact (beyond the scenario's allowed range, set directly here) with the
+  // elevator started deep inside it makes the step size collapse.
+  Airplane a = test::plain_airplane();
+  a.circuit.stop_stiffness = 1e18;
+  a.circuit.stop_damping = 0.0;
+  auto p = std::make_shared<const Plant>(make_plant(a));
+  Trim t = trim_held(*p, test::cruise(), 0.0);
+  t.x[sx::de] = a.elevator.delta_max + 0.3;
+  t.controls.stick = Stick::free;
+  RunSettings rs = quiet_settings(2.0);
+  Simulation sim(p, GustField{}, t, rs, RunCase{Stick::free, 0.0}, {});
+  bool threw = false;
+  try {
+    sim.run_to_end();
+  } catch (const NumericalFailure& e) {
+    threw = true;
+    CHECK(e.message.size() > 10);
+  }
+  CHECK(threw);
+  CHECK_FALSE(sim.departure().departed);
+}
