@@ -186,6 +186,31 @@ SampleSpec parse_sample(const Scenario& s, const std::string& text) {
   return r;
 }
 
+namespace {
+
+// Growth rate of the slow motion in a trace: the airspeed deviation from trim once the
+// disturbance is over (after t0) and while the motion is still small, decimated to about 300
+// samples, through the matrix pencil.
+double growth_from_trace(const Trace& tr, const Trim& t, double t0) {
+  if (tr.size() < 2) return nan_;
+  const double dt = tr.ch[ch_time][1] - tr.ch[ch_time][0];
+  std::vector<double> y;
+  for (std::size_t i = 0; i < tr.size(); ++i) {
+    if (tr.ch[ch_time][i] < t0) continue;
+    const double dV = tr.ch[ch_airspeed][i] - t.airspeed;
+    const double da = tr.ch[ch_alpha][i] - t.alpha;
+    if (std::abs(dV) > 0.05 * t.airspeed || std::abs(da) > 2.0 * units::deg) break;
+    y.push_back(dV);
+  }
+  const std::size_t k = std::max<std::size_t>(1, y.size() / 300);
+  std::vector<double> yd;
+  for (std::size_t i = 0; i < y.size(); i += k) yd.push_back(y[i]);
+  if (yd.size() < 20) return nan_;
+  return growth_rate(yd, dt * static_cast<double>(k), 6);
+}
+
+}  // namespace
+
 double time_domain_growth(const Scenario& s0, bool free, double seconds) {
   const Scenario s = with_disturbance(s0);
   const auto plant = scenario_plant(s);
@@ -197,23 +222,7 @@ double time_domain_growth(const Scenario& s0, bool free, double seconds) {
   rs.abs_tol = std::min(rs.abs_tol, 1e-10);
   Simulation sim(plant, scenario_gust_field(s), t, rs, RunCase{free ? Stick::free : Stick::held, 0.0}, s.events);
   sim.run_to_end();
-  const auto& tr = sim.trace();
-  // the airspeed deviation once the disturbance is over, while the motion is still small
-  const double t0 = disturbance_end(s) + 2.0;
-  std::vector<double> y;
-  for (std::size_t i = 0; i < tr.size(); ++i) {
-    if (tr.ch[ch_time][i] < t0) continue;
-    const double dV = tr.ch[ch_airspeed][i] - t.airspeed;
-    const double da = tr.ch[ch_alpha][i] - t.alpha;
-    if (std::abs(dV) > 0.05 * t.airspeed || std::abs(da) > 2.0 * units::deg) break;
-    y.push_back(dV);
-  }
-  // decimate to about 300 samples
-  const std::size_t k = std::max<std::size_t>(1, y.size() / 300);
-  std::vector<double> yd;
-  for (std::size_t i = 0; i < y.size(); i += k) yd.push_back(y[i]);
-  if (yd.size() < 20) return nan_;
-  return growth_rate(yd, 0.05 * static_cast<double>(k), 6);
+  return growth_from_trace(sim.trace(), t, disturbance_end(s) + 2.0);
 }
 
 PointResult evaluate_point(const Scenario& base, const std::vector<std::string>& keys,
@@ -275,8 +284,10 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
       };
       fill(o.held.get(), r.diverged_held, r.divergence_time_held, r.peak_dn_held, r.peak_dalpha_held_deg);
       fill(o.free.get(), r.diverged_free, r.divergence_time_free, r.peak_dn_free, r.peak_dalpha_free_deg);
-      r.growth_held = time_domain_growth(s, false, run_seconds);
-      r.growth_free = rev ? time_domain_growth(s, true, run_seconds) : nan_;
+      // the slow motion's rate read from these same runs (scenario's own disturbance)
+      const double t0 = disturbance_end(s) + 2.0;
+      r.growth_held = o.held ? growth_from_trace(o.held->trace, o.trim, t0) : nan_;
+      r.growth_free = o.free ? growth_from_trace(o.free->trace, o.trim, t0) : nan_;
     }
     r.ok = true;
   } catch (const ScenarioError& e) {
