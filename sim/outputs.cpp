@@ -141,13 +141,17 @@ std::string run_table(const RunOutcome& o) {
     for (int mm = 0; mm < 2; ++mm) {
       std::string label = std::string(mm == 0 ? "max " : "min ") + ci.label + " [" + ci.unit + "]";
       if (label.size() > 34) label.resize(34);
-      std::string cell[2];
+      char cell[2][48];
       for (int k = 0; k < 2; ++k) {
-        if (!cases[k]) { cell[k] = "-"; continue; }
+        if (!cases[k]) {
+          std::snprintf(cell[k], sizeof cell[k], "-");
+          continue;
+        }
         const Peak p = peak_of(cases[k]->trace, ch);
-        cell[k] = fixed(mm == 0 ? p.max : p.min, 3) + " @" + fixed(mm == 0 ? p.time_of_max : p.time_of_min, 1);
+        std::snprintf(cell[k], sizeof cell[k], "%.3f @%.1f", mm == 0 ? p.max : p.min,
+                      mm == 0 ? p.time_of_max : p.time_of_min);
       }
-      std::snprintf(line, sizeof line, "%-34s %16s %16s\n", label.c_str(), cell[0].c_str(), cell[1].c_str());
+      std::snprintf(line, sizeof line, "%-34s %16s %16s\n", label.c_str(), cell[0], cell[1]);
       s << line;
     }
   }
