@@ -6,5 +6,5 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 bash scripts/deps.sh build
 cmake -S . -B build -DCMAKE_BUILD_TYPE=Release > build.log 2>&1 || { cat build.log; exit 1; }
-cmake --build build -j2 >> build.log 2>&1 || { tail -50 build.log; exit 1; }
+cmake --build build -j2 --target floatpitch >> build.log 2>&1 || { tail -50 build.log; exit 1; }
 ./build/floatpitch run scenarios/wren_aft_cg.toml --out out/wren_aft_cg
