@@ -19,6 +19,8 @@ enum class GustShape {
   one_minus_cosine,  // U = (A/2)(1 - cos(pi s/H)) for 0 <= s <= 2H (14 CFR 25.341(a) form)
   sharp_edge,        // U = A for s >= 0
   ramp,              // U = A s/H for 0 <= s <= H, A beyond
+  train,             // `count` 1-cosine gusts, each starting `spacing` after the one before
+                     // (they add where they overlap)
 };
 
 enum class GustComponent { vertical, horizontal };
@@ -29,15 +31,30 @@ struct DiscreteGust {
   double start = 0.0;      // earth distance X at which the gust begins [m]
   double length = 30.0;    // gradient distance H (1-cosine: distance to the peak; ramp: rise) [m]
   double amplitude = 5.0;  // peak velocity [m/s] (vertical: up positive)
+  int count = 1;           // train: number of 1-cosine gusts [-]
+  double spacing = 0.0;    // train: distance from the start of one gust to the start of the next [m]
+};
+
+// How a turbulence record is read between its samples.
+enum class Interpolation {
+  linear,        // continuous, with a kink at every sample
+  cubic_spline,  // natural cubic spline: continuous slope and curvature (the integrator's
+                 // error estimate is not upset at every sample)
 };
 
 // A sampled record of continuous turbulence along X: value i belongs to X = x0 + i*dx,
-// linearly interpolated, zero outside the record.
+// interpolated between samples, zero outside the record. u and w are either empty (the
+// component is absent) or of the same length.
 struct TurbulenceRecord {
   double x0 = 0.0;            // [m]
   double dx = 1.0;            // sample spacing [m]
   std::vector<double> u;      // longitudinal component [m/s]
   std::vector<double> w;      // vertical component, up positive [m/s]
+  Interpolation interpolation = Interpolation::linear;
+  std::vector<double> u2, w2; // cubic_spline: second derivatives at the samples [m/s per m^2]
+                              // (filled by prepare_spline)
+  // Fill u2 and w2 for the cubic spline (natural end conditions).
+  void prepare_spline();
 };
 
 struct GustSample {

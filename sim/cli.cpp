@@ -38,6 +38,12 @@ int main(int argc, char** argv) {
       ->check(CLI::Range(0.1, 3600.0));
   run->add_option("--out", run_o.out, "output directory (default: out)");
   run->add_flag("--quiet", run_o.quiet, "print nothing on success");
+  run->add_option("--seeds", run_o.seeds,
+                  "turbulence: run this many seeds (turbulence.seed, +1, ...) in parallel; prints means and spreads, "
+                  "writes turbulence.csv (default: turbulence.seeds)")
+      ->check(CLI::Range(1, 10000));
+  run->add_option("--jobs", run_o.jobs, "threads for --seeds and the tuned-gust search (default: the number of cores)")
+      ->check(CLI::Range(1, 256));
 
   trim->add_option("--tab-for-elevator", trim_o.tab_for_elevator,
                    "hands-off: the tab (and speed) that hold this elevator angle [deg]");

@@ -17,6 +17,7 @@
 #include "model/units.hpp"
 #include "sim/analysis.hpp"
 #include "sim/atomic_file.hpp"
+#include "sim/gusts.hpp"
 #include "sim/outputs.hpp"
 #include "sim/run.hpp"
 #include "sim/sweep.hpp"
@@ -157,6 +158,10 @@ int trim(const TrimOpts& o) {
   });
 }
 
+namespace {
+int default_jobs(int j);
+}  // namespace
+
 int run(const RunOpts& o) {
   return guarded(o.common.scenario, [&] {
     std::vector<std::string> set = o.common.set;
@@ -166,14 +171,33 @@ int run(const RunOpts& o) {
     if (o.controls == "held") which = ControlsChoice::held;
     else if (o.controls == "free") which = ControlsChoice::free;
     else if (o.controls == "both") which = ControlsChoice::both;
-    const RunOutcome r = run_scenario(s, which);
+    // several turbulence seeds: statistics only (sim/gusts.hpp)
+    const int seeds = o.seeds > 0 ? o.seeds : s.turbulence.seeds;
+    if (o.seeds > 0 && s.turbulence.model == TurbulenceKind::none)
+      throw ScenarioError{s.path, 0, 0, "turbulence.model",
+                          "--seeds needs continuous turbulence: set turbulence.model to \"dryden\" or \"von_karman\""};
+    if (seeds > 1 && s.turbulence.model != TurbulenceKind::none) {
+      const SeedsReport rep = seeds_report(s, run_seeds(s, which, seeds, default_jobs(o.jobs), !o.quiet));
+      OutputSet out(o.out);
+      out.add("turbulence.csv", rep.csv);
+      out.add("summary.json", rep.summary_json);
+      out.commit();
+      if (!o.quiet)
+        std::cout << s.path << ": " << s.name << "\n\n" << rep.table << "wrote " << o.out << "/{turbulence.csv,summary.json}\n";
+      return kOk;
+    }
+    TuneResult tune;
+    const RunOutcome r = tuned_gust_index(s) >= 0 ? run_scenario_tuned(s, which, default_jobs(o.jobs), !o.quiet, tune)
+                                                  : run_scenario(s, which);
     OutputSet out(o.out);
     if (r.held) out.add("held.csv", trace_csv(r.held->trace));
     if (r.free) out.add("free.csv", trace_csv(r.free->trace));
-    out.add("summary.json", summary_json(s, r).dump(2) + "\n");
+    json summary = summary_json(s, r);
+    summary.update(gust_summary_json(s, r, &tune));
+    out.add("summary.json", summary.dump(2) + "\n");
     out.commit();
     if (!o.quiet) {
-      std::cout << s.path << ": " << s.name << "\n\n" << run_table(r);
+      std::cout << s.path << ": " << s.name << "\n\n" << run_table(r) << gust_table(s, r, &tune);
       std::cout << "wrote " << o.out << "/{" << (r.held ? "held.csv," : "") << (r.free ? "free.csv," : "")
                 << "summary.json}\n";
     }

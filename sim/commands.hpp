@@ -36,6 +36,8 @@ struct RunOpts {
   double duration = -1;      // < 0: the scenario's
   std::string out = "out";
   bool quiet = false;
+  int seeds = 0;             // turbulence: number of seeds (0: the scenario's turbulence.seeds)
+  int jobs = 0;              // threads for seeds and the tuned-gust search (0: the number of cores)
 };
 int run(const RunOpts& o);
 

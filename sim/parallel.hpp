@@ -11,6 +11,7 @@
 #include <atomic>
 #include <chrono>
 #include <cstdio>
+#include <exception>
 #include <mutex>
 #include <string>
 #include <thread>
@@ -65,6 +66,26 @@ void parallel_for(long n, int jobs, F&& f) {
   for (int k = 1; k < std::min<long>(jobs, n); ++k) pool.emplace_back(worker);
   worker();
   for (auto& t : pool) t.join();
+}
+
+// parallel_for, but an exception thrown by f in any thread stops the hand-out of further
+// indices and the first one is rethrown in the caller's thread once all threads have joined.
+template <class F>
+void parallel_for_rethrow(long n, int jobs, F&& f) {
+  std::exception_ptr first;
+  std::mutex m;
+  std::atomic<bool> failed{false};
+  parallel_for(n, jobs, [&](long i) {
+    if (failed) return;
+    try {
+      f(i);
+    } catch (...) {
+      std::lock_guard<std::mutex> lk(m);
+      if (!first) first = std::current_exception();
+      failed = true;
+    }
+  });
+  if (first) std::rethrow_exception(first);
 }
 
 }  // namespace fp

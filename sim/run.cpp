@@ -8,6 +8,7 @@
 #include <boost/numeric/odeint.hpp>
 
 #include "model/units.hpp"
+#include "sim/gusts.hpp"
 
 namespace fp {
 
@@ -33,6 +34,7 @@ const std::array<ChannelInfo, ch_count> kChannels{{
     {"gust_w_tail", "m/s", 1.0, "vertical gust at tail (up +)"},
     {"gust_u_wing", "m/s", 1.0, "horizontal gust at wing"},
     {"gust_u_tail", "m/s", 1.0, "horizontal gust at tail"},
+    {"hold_force", "N", 1.0, "force to hold the stick where it is (pull +)"},
 }};
 
 std::string fmt(const char* f, double a, double b = 0) {
@@ -44,6 +46,28 @@ std::string fmt(const char* f, double a, double b = 0) {
 }  // namespace
 
 const ChannelInfo& channel_info(std::size_t ch) { return kChannels.at(ch); }
+
+// The stick force that holds the elevator still at its present angle and zero rate: the
+// model's own rigid-hold evaluation (dynamics.cpp solves the hinge equation for the pilot's
+// hinge moment when the stick is held rigidly), at the same state and time.
+double hold_force(const Plant& p, const GustField& gust, double t, const State& x, const Controls& c) {
+  Controls h = c;
+  h.stick = Stick::held;
+  h.hold_de = x[sx::de];
+  h.pilot_force = 0.0;
+  State xs = x;
+  xs[sx::de_dot] = 0.0;
+  State d{};
+  Eval e;
+  if (p.ap.circuit.held_stiffness == 0.0) {
+    derivatives(p, gust, xs, h, t, d, &e);
+  } else {
+    Plant rigid = p;  // a compliant hold would read zero force at its own angle: hold rigidly
+    rigid.ap.circuit.held_stiffness = 0.0;
+    derivatives(rigid, gust, xs, h, t, d, &e);
+  }
+  return e.stick_force;
+}
 
 std::array<double, ch_count> output_row(const Plant& p, const GustField& gust, double t,
                                         const State& x, const Controls& c) {
@@ -68,6 +92,7 @@ std::array<double, ch_count> output_row(const Plant& p, const GustField& gust, d
   r[ch_gust_w_tail] = e.gust_tail.w;
   r[ch_gust_u_wing] = e.gust_wing.u;
   r[ch_gust_u_tail] = e.gust_tail.u;
+  r[ch_hold_force] = c.stick == Stick::held ? e.stick_force : hold_force(p, gust, t, x, c);
   return r;
 }
 
@@ -322,6 +347,7 @@ GustField scenario_gust_field(const Scenario& s) {
   GustField g;
   g.gusts = s.gusts;
   g.front_speed = s.gust_front_speed;
+  g.turbulence = scenario_turbulence(s);
   return g;
 }
 

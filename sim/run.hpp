@@ -27,7 +27,10 @@ namespace fp {
 enum Channel : std::size_t {
   ch_time, ch_airspeed, ch_alpha, ch_q, ch_theta, ch_altitude, ch_load_factor, ch_elevator,
   ch_elevator_rate, ch_tab, ch_stick_force, ch_hinge_moment, ch_alpha_tail, ch_gust_w_wing,
-  ch_gust_w_tail, ch_gust_u_wing, ch_gust_u_tail, ch_count
+  ch_gust_w_tail, ch_gust_u_wing, ch_gust_u_tail,
+  ch_hold_force,  // stick force that would hold the elevator still where it is (free: what the
+                  // pilot feels on taking hold again; held: the holding force itself)
+  ch_count
 };
 
 struct ChannelInfo {
@@ -123,6 +126,10 @@ class Simulation {
   bool done_ = false;
   std::shared_ptr<Stepper> stepper_;
 };
+
+// The stick force that would hold the elevator still at its present angle (pull +) [N]: with
+// the stick free, the force the pilot feels on taking hold again.
+double hold_force(const Plant& p, const GustField& gust, double t, const State& x, const Controls& c);
 
 // One row of outputs at (t, x) with the given controls (used for the grid and for tables).
 std::array<double, ch_count> output_row(const Plant& p, const GustField& gust, double t,

@@ -17,7 +17,10 @@
 #include <fstream>
 #include <toml++/toml.h>
 
+#include "model/atmosphere.hpp"
+#include "model/design_gust.hpp"
 #include "model/dynamics.hpp"
+#include "model/units.hpp"
 #include "sim/keys.hpp"
 
 namespace fp {
@@ -370,6 +373,41 @@ void derive_gust_starts(Scenario& s) {
     if (s.gust_start_times[i]) s.gusts[i].start = closing * *s.gust_start_times[i];
 }
 
+// Amplitudes (and default gradient distances) of gusts set by a design rule: the rule's
+// velocity is an equivalent airspeed, applied as true airspeed at the condition's density
+// (model/design_gust.hpp). Throws ScenarioError when the rule gives no value at the altitude.
+void derive_gust_amplitudes(Scenario& s) {
+  const double rho = isa_at(geopotential_altitude(s.condition.altitude)).density;
+  for (std::size_t i = 0; i < s.gusts.size() && i < s.gust_designs.size(); ++i) {
+    const GustDesign& d = s.gust_designs[i];
+    DiscreteGust& g = s.gusts[i];
+    if (d.rule == GustRule::amplitude) continue;
+    if (d.length_auto) g.length = 12.5 * s.airplane.wing.mac;
+    const auto it = s.origins.find("gust[" + std::to_string(i) + "]");
+    const KeyOrigin o = it != s.origins.end() ? it->second : KeyOrigin{s.path, 0, 0, ""};
+    const std::string which = "[[gust]] number " + std::to_string(i + 1);
+    const double alt_ft = s.condition.altitude / units::ft;
+    double U_eas = 0.0;
+    if (d.rule == GustRule::gradient_distance) {
+      const double ref = d.design_velocity != 0.0 ? d.design_velocity : gradient_reference_velocity(s.condition.altitude);
+      if (std::isnan(ref))
+        fail(o, "gust.rule",
+             which + ": the gradient_distance rule's U_ref is given here only up to 15000 ft (condition.altitude is " +
+                 keys::fmt(alt_ft) + " ft): give gust.design_velocity");
+      U_eas = ref * d.alleviation * gradient_distance_factor(g.length);
+    } else {
+      const double ref = d.design_velocity != 0.0 ? d.design_velocity
+                                                  : derived_gust_velocity(d.rule == GustRule::derived_vd, s.condition.altitude);
+      if (std::isnan(ref))
+        fail(o, "gust.rule",
+             which + ": the derived gust velocities of 23.333(c) are given here only up to 20000 ft (condition.altitude "
+                     "is " + keys::fmt(alt_ft) + " ft): give gust.design_velocity");
+      U_eas = ref;
+    }
+    g.amplitude = eas_to_tas(U_eas, rho);
+  }
+}
+
 // ---------------------------------------------------------------------------------------
 // The loader: one per load, holding the scenario being filled.
 
@@ -457,6 +495,7 @@ class Loader {
     }
     if (!s_.airplane.circuit.reversible && !s_.origins.count("run.controls")) s_.run.controls = ControlsChoice::held;
     derive_gust_starts(s_);
+    derive_gust_amplitudes(s_);
     sort_events(s_);
     validate(s_);
     return std::move(s_);
@@ -615,6 +654,7 @@ class Loader {
     } else {
       s_.gusts.clear();
       s_.gust_start_times.clear();
+      s_.gust_designs.clear();
     }
     for (auto it = s_.origins.begin(); it != s_.origins.end();)
       it = it->first.rfind(name + "[", 0) == 0 ? s_.origins.erase(it) : std::next(it);
@@ -706,8 +746,31 @@ class Loader {
     const auto list = keys::gust_keys();
     const auto got = entry_keys(t, list, "gust");
     const std::string which = "[[gust]] number " + std::to_string(index + 1);
-    for (const char* req : {"length", "amplitude"})
-      if (!got.count(req)) fail(eo, std::string("gust.") + req, which + " has no " + req);
+    GustDesign d;
+    if (got.count("rule")) {
+      const Key& k = *keys::find_in(list, "rule");
+      d.rule = static_cast<GustRule>(choice_of(k, k.name, *got.at("rule"), at(*got.at("rule"))));
+    }
+    const bool derived = d.rule == GustRule::derived_vc || d.rule == GustRule::derived_vd;
+    if (!got.count("length") && !derived)
+      fail(eo, "gust.length", which + " has no length (only a derived_vc or derived_vd rule supplies one: 12.5 MAC)");
+    if (d.rule == GustRule::amplitude && !got.count("amplitude"))
+      fail(eo, "gust.amplitude", which + " has no amplitude (give one, or a rule)");
+    if (d.rule != GustRule::amplitude && got.count("amplitude"))
+      fail(at(*got.at("amplitude")), "gust.amplitude",
+           which + ": give either amplitude or rule, not both (gust.design_velocity changes a rule's velocity)");
+    if (d.rule == GustRule::amplitude)
+      for (const char* k : {"design_velocity", "alleviation"})
+        if (got.count(k)) fail(at(*got.at(k)), std::string("gust.") + k, which + ": applies only with gust.rule");
+    if (d.rule != GustRule::gradient_distance && got.count("alleviation"))
+      fail(at(*got.at("alleviation")), "gust.alleviation", which + ": applies only with rule = \"gradient_distance\"");
+    if (got.count("design_velocity")) {
+      d.design_velocity = entry_number(list, "design_velocity", *got.at("design_velocity"));
+      if (d.design_velocity == 0.0)
+        fail(at(*got.at("design_velocity")), "gust.design_velocity", which + ": must not be 0 (leave it out for the rule's value)");
+    }
+    if (got.count("alleviation")) d.alleviation = entry_number(list, "alleviation", *got.at("alleviation"));
+    d.length_auto = !got.count("length");
     const bool has_start = got.count("start") > 0, has_time = got.count("start_time") > 0;
     if (has_start == has_time)
       fail(has_start ? at(*got.at("start_time")) : eo, "gust.start",
@@ -721,13 +784,47 @@ class Loader {
       const Key& k = *keys::find_in(list, "component");
       g.component = static_cast<GustComponent>(choice_of(k, k.name, *got.at("component"), at(*got.at("component"))));
     }
-    g.length = entry_number(list, "length", *got.at("length"));
-    g.amplitude = entry_number(list, "amplitude", *got.at("amplitude"));
+    if (got.count("length")) g.length = entry_number(list, "length", *got.at("length"));
+    if (got.count("amplitude")) g.amplitude = entry_number(list, "amplitude", *got.at("amplitude"));
+    const bool train = g.shape == GustShape::train;
+    for (const char* k : {"count", "spacing"}) {
+      if (train && !got.count(k)) fail(eo, std::string("gust.") + k, which + ": shape \"train\" needs " + k);
+      if (!train && got.count(k))
+        fail(at(*got.at(k)), std::string("gust.") + k, which + ": applies only to shape \"train\"");
+    }
+    if (train) {
+      const Key& ck = *keys::find_in(list, "count");
+      const toml::node& cn = *got.at("count");
+      const auto* ci = cn.as_integer();
+      if (!ci) fail(at(cn), ck.name, "expects a whole number, " + keys::range_text(ck) + "; got " + type_words(cn));
+      check_range(ck, ck.name, static_cast<double>(ci->get()), at(cn));
+      g.count = static_cast<int>(ci->get());
+      g.spacing = entry_number(list, "spacing", *got.at("spacing"));
+    }
+    const bool tmin = got.count("tune_min") > 0, tmax = got.count("tune_max") > 0;
+    if (tmin != tmax)
+      fail(at(*got.at(tmin ? "tune_min" : "tune_max")), tmin ? "gust.tune_max" : "gust.tune_min",
+           which + ": a tuned-gust search needs both tune_min and tune_max");
+    if (got.count("tune_points") && !tmin)
+      fail(at(*got.at("tune_points")), "gust.tune_points", which + ": applies only with tune_min and tune_max");
+    if (tmin) {
+      d.tune_min = entry_number(list, "tune_min", *got.at("tune_min"));
+      d.tune_max = entry_number(list, "tune_max", *got.at("tune_max"));
+      if (got.count("tune_points")) {
+        const Key& pk = *keys::find_in(list, "tune_points");
+        const toml::node& pn = *got.at("tune_points");
+        const auto* pi = pn.as_integer();
+        if (!pi) fail(at(pn), pk.name, "expects a whole number, " + keys::range_text(pk) + "; got " + type_words(pn));
+        check_range(pk, pk.name, static_cast<double>(pi->get()), at(pn));
+        d.tune_points = static_cast<int>(pi->get());
+      }
+    }
     std::optional<double> start_time;
     if (has_start) g.start = entry_number(list, "start", *got.at("start"));
     if (has_time) start_time = entry_number(list, "start_time", *got.at("start_time"));
     s_.gusts.push_back(g);
     s_.gust_start_times.push_back(start_time);
+    s_.gust_designs.push_back(d);
   }
 
   Scenario s_;
@@ -800,6 +897,12 @@ void set_value(Scenario& s, const std::string& key, double si_value, const std::
   }
   s.origins[k.name] = o;
   derive_gust_starts(s);
+  derive_gust_amplitudes(s);
+}
+
+void derive_gust_values(Scenario& s) {
+  derive_gust_starts(s);
+  derive_gust_amplitudes(s);
 }
 
 double get_value(const Scenario& s, const std::string& key) {
@@ -974,7 +1077,35 @@ void validate(const Scenario& s) {
         fail(o, std::string("gust.") + sn, which + ": " + *why);
     };
     const int shape = static_cast<int>(g.shape), comp = static_cast<int>(g.component);
-    if (shape < 0 || shape > 2 || comp < 0 || comp > 1) fail(o, "gust.shape", which + " has no valid shape or component");
+    if (shape < 0 || shape > 3 || comp < 0 || comp > 1) fail(o, "gust.shape", which + " has no valid shape or component");
+    if (g.shape == GustShape::train) {
+      if (auto why = keys::range_problem(*keys::find_in(gu_keys, "count"), g.count)) fail(o, "gust.count", which + ": " + *why);
+      check("spacing", g.spacing);
+    }
+    if (i < s.gust_designs.size()) {
+      const GustDesign& d = s.gust_designs[i];
+      const int rule = static_cast<int>(d.rule);
+      if (rule < 0 || rule > 3) fail(o, "gust.rule", which + " has no valid rule");
+      if (d.design_velocity != 0.0) check("design_velocity", d.design_velocity);
+      check("alleviation", d.alleviation);
+      if (d.tune_min != 0.0 || d.tune_max != 0.0) {
+        check("tune_min", d.tune_min);
+        check("tune_max", d.tune_max);
+        if (auto why = keys::range_problem(*keys::find_in(gu_keys, "tune_points"), d.tune_points))
+          fail(o, "gust.tune_points", which + ": " + *why);
+        if (!(d.tune_min < d.tune_max))
+          fail(o, "gust.tune_max",
+               which + ": tune_max (" + keys::fmt(d.tune_max) + " m) must be more than tune_min (" + keys::fmt(d.tune_min) +
+                   " m)");
+        if (g.shape != GustShape::one_minus_cosine && g.shape != GustShape::train)
+          fail(o, "gust.tune_min", which + ": the tuned-gust search varies a 1-cosine gradient distance: use shape "
+                                           "\"one_minus_cosine\" or \"train\"");
+        for (std::size_t j = 0; j < i && j < s.gust_designs.size(); ++j)
+          if (s.gust_designs[j].tune_max > 0.0)
+            fail(o, "gust.tune_min", which + ": only one gust may be tuned (gust number " + std::to_string(j + 1) +
+                                         " is tuned already)");
+      }
+    }
     check("length", g.length);
     check("amplitude", g.amplitude);
     const bool timed = i < s.gust_start_times.size() && s.gust_start_times[i].has_value();
@@ -991,6 +1122,12 @@ void validate(const Scenario& s) {
                (s.gust_front_speed > 0 ? " plus the gust front's " + keys::fmt(s.gust_front_speed) + " m/s" : "") + ")");
     }
   }
+
+  // Turbulence: it must begin within the run.
+  if (s.turbulence.model != TurbulenceKind::none && s.turbulence.start_time > s.run.duration)
+    fail(where_any({"turbulence.start_time", "run.duration"}), "turbulence.start_time",
+         "= " + keys::fmt(s.turbulence.start_time) + " s is after the end of the run (run.duration = " +
+             keys::fmt(s.run.duration) + " s)");
 
   // Is the airplane physically possible? The model says which keys are at fault.
   try {
@@ -1109,8 +1246,26 @@ std::string to_toml(const Scenario& s) {
     out += std::string("shape = \"") + choice_name(*keys::find_in(gu, "shape"), static_cast<int>(g.shape)) + "\"\n";
     out += std::string("component = \"") +
            choice_name(*keys::find_in(gu, "component"), static_cast<int>(g.component)) + "\"\n";
-    out += number_line(*keys::find_in(gu, "length"), "length", g.length);
-    out += number_line(*keys::find_in(gu, "amplitude"), "amplitude", g.amplitude);
+    const GustDesign d = i < s.gust_designs.size() ? s.gust_designs[i] : GustDesign{};
+    if (!d.length_auto) out += number_line(*keys::find_in(gu, "length"), "length", g.length);
+    if (d.rule == GustRule::amplitude) {
+      out += number_line(*keys::find_in(gu, "amplitude"), "amplitude", g.amplitude);
+    } else {
+      out += std::string("rule = \"") + choice_name(*keys::find_in(gu, "rule"), static_cast<int>(d.rule)) + "\"\n";
+      if (d.design_velocity != 0.0)
+        out += number_line(*keys::find_in(gu, "design_velocity"), "design_velocity", d.design_velocity);
+      if (d.rule == GustRule::gradient_distance)
+        out += number_line(*keys::find_in(gu, "alleviation"), "alleviation", d.alleviation);
+    }
+    if (g.shape == GustShape::train) {
+      out += "count = " + std::to_string(g.count) + "\n";
+      out += number_line(*keys::find_in(gu, "spacing"), "spacing", g.spacing);
+    }
+    if (d.tune_max > 0.0) {
+      out += number_line(*keys::find_in(gu, "tune_min"), "tune_min", d.tune_min);
+      out += number_line(*keys::find_in(gu, "tune_max"), "tune_max", d.tune_max);
+      out += "tune_points = " + std::to_string(d.tune_points) + "\n";
+    }
     if (i < s.gust_start_times.size() && s.gust_start_times[i])
       out += number_line(*keys::find_in(gu, "start_time"), "start_time", *s.gust_start_times[i]);
     else

@@ -74,6 +74,47 @@ struct Envelope {
   double max_speed = 0.0;        // V_NE or V_D [m/s] (0 = auto)
 };
 
+// Continuous turbulence ([turbulence]; see model/turbulence.hpp and docs/gusts.md).
+enum class TurbulenceKind { none, dryden, von_karman };
+enum class TurbulenceSeverity { light, moderate, severe };
+enum class TurbulenceComponents { both, vertical, horizontal };
+
+struct TurbulenceSettings {
+  TurbulenceKind model = TurbulenceKind::none;
+  TurbulenceSeverity severity = TurbulenceSeverity::moderate;
+  double probability = 0.0;      // probability of exceedance instead of severity [-] (0 = use severity; 1e-5..1e-2)
+  TurbulenceComponents components = TurbulenceComponents::both;
+  double sigma_u = 0.0;          // longitudinal intensity [m/s] (0 = from height and severity)
+  double sigma_w = 0.0;          // vertical intensity [m/s] (0 = from height and severity)
+  double scale_u = 0.0;          // longitudinal scale length [m] (0 = from height)
+  double scale_w = 0.0;          // vertical scale length [m] (0 = from height)
+  double height = 0.0;           // height above ground for the tables [m] (0 = condition.altitude)
+  int seed = 1;                  // random seed [-] (0..2147483647)
+  int seeds = 1;                 // number of seeds a run uses (seed, seed+1, ...) [-] (1..10000)
+  double spacing = 0.0;          // sample spacing of the record [m] (0 = half the wing-tail distance, <= L/10)
+  double start_time = 0.0;       // time at which the CG enters the turbulence [s] (0..run.duration)
+  double fade_in = 2.0;          // time over which it rises to full strength [s] (0..600)
+};
+
+// How a [[gust]]'s amplitude is set: given, or by a published design rule (docs/gusts.md).
+enum class GustRule {
+  amplitude,          // gust.amplitude as written (true airspeed)
+  derived_vc,         // U_de = 50 ft/s EAS at V_C, 14 CFR 23.333(c) / 23.341(c) before amdt 64, CS 23.341
+  derived_vd,         // U_de = 25 ft/s EAS at V_D, the same rule
+  gradient_distance,  // U_ref F_g (H/350 ft)^(1/6) EAS, 14 CFR 25.341(a) (a transport-category convention)
+};
+
+// Per [[gust]] (same order as Scenario::gusts): the rule and the tuned-gust search.
+struct GustDesign {
+  GustRule rule = GustRule::amplitude;
+  double design_velocity = 0.0;  // the rule's reference velocity, EAS [m/s] (0 = the rule's own)
+  double alleviation = 1.0;      // gradient_distance: flight profile alleviation factor F_g [-] (0..1)
+  bool length_auto = false;      // derived rules without gust.length: H = 12.5 MAC
+  double tune_min = 0.0;         // tuned-gust search over H from tune_min to tune_max [m] (0 = none)
+  double tune_max = 0.0;
+  int tune_points = 12;          // grid points of the search before refinement [-] (3..200)
+};
+
 // Where a key's value came from, so that errors about relations between keys can point at
 // the file and line that set each of them.
 struct KeyOrigin {
@@ -101,6 +142,11 @@ struct Scenario {
   // re-derived when set_value changes the airspeed, the flight path or the front speed.
   // nullopt (or missing entries) when the start was given as a distance.
   std::vector<std::optional<double>> gust_start_times;
+  // Per gust (same order as `gusts`; missing entries: amplitude as given, no search). The
+  // amplitude of a rule gust is derived from the rule, the altitude and the gradient distance,
+  // and re-derived like the starts given as times.
+  std::vector<GustDesign> gust_designs;
+  TurbulenceSettings turbulence;
   // Where each key was set: dotted keys ("wing.area"), "event[i]" and "gust[i]" (0-based)
   // for the entries of the arrays. Filled by the loader and set_value; used in messages only.
   std::map<std::string, KeyOrigin> origins;
@@ -125,6 +171,11 @@ double get_value(const Scenario& s, const std::string& key);
 // A value for a numeric key written as text ("0.31", "110 kt", "-0.005 /deg") in SI, with the
 // same unit rules as the files; `origin` names where it came from. Throws ScenarioError.
 double parse_quantity(const std::string& key, const std::string& text, const std::string& origin);
+
+// Re-derive the values that follow from others: gust starts given as times, and the amplitudes
+// (and default gradient distances) of gusts set by a design rule. load/parse and set_value do
+// it; call it after changing a gust or the condition in code. Throws ScenarioError.
+void derive_gust_values(Scenario& s);
 
 // Check the relations between keys (stops in order, CG envelope, airframe inertia, ...) and
 // throw ScenarioError naming the keys. load/parse call it; call it after set_value.
