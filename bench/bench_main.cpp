@@ -2,10 +2,12 @@
 //   run_pair:   one 60 s held-and-free run of the demo scenario, CSV text included
 //               (goal: under 3 ms for the pair on one core)
 //   derivative: one call of the derivative function (calls per second as a counter)
+//   turbulence_20_seeds: 20 seeds x 300 s of turbulence held and free (goal: under 2 s on 2 cores)
 // Run: ./build/floatpitch-bench  (add --benchmark_repetitions=10 for medians)
 #include <benchmark/benchmark.h>
 
 #include "model/dynamics.hpp"
+#include "sim/gusts.hpp"
 #include "sim/outputs.hpp"
 #include "sim/run.hpp"
 #include "sim/scenario.hpp"
@@ -82,6 +84,20 @@ void cg_sweep_100(benchmark::State& st) {
   }
 }
 BENCHMARK(cg_sweep_100)->Args({1, 0})->Args({2, 0})->Args({2, 1})->Unit(benchmark::kMillisecond)->UseRealTime();
+
+// Turbulence: 20 seeds x 300 s of moderate Dryden turbulence, held and free (40 runs), with the
+// statistics of each (goal: under 2 s on 2 cores). Arg: jobs. The scenario's tolerances
+// (rel 1e-5, abs 1e-6) and 50 Hz output are those of scenarios/wren_turbulence.toml.
+void turbulence_20_seeds(benchmark::State& st) {
+  const fp::Scenario s = fp::load_scenario(FP_SOURCE_DIR "/scenarios/wren_turbulence.toml");
+  const int jobs = static_cast<int>(st.range(0));
+  for (auto _ : st) {
+    const fp::SeedsResult r = fp::run_seeds(s, fp::ControlsChoice::both, 20, jobs, false);
+    benchmark::DoNotOptimize(r.runs.data());
+    st.counters["runs"] = 2.0 * static_cast<double>(r.runs.size());
+  }
+}
+BENCHMARK(turbulence_20_seeds)->Arg(1)->Arg(2)->Unit(benchmark::kMillisecond)->UseRealTime()->Iterations(3);
 
 }  // namespace
 

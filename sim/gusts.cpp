@@ -141,6 +141,7 @@ TuneResult tune_gust(const Scenario& s, ControlsChoice which, int jobs, bool pro
   if (which != ControlsChoice::held) cases.push_back(Stick::free);
   // log-spaced grid
   r.grid.resize(static_cast<std::size_t>(np));
+  r.grid_size = r.grid.size();
   for (int k = 0; k < np; ++k)
     r.grid[static_cast<std::size_t>(k)].H = d.tune_min * std::pow(d.tune_max / d.tune_min, static_cast<double>(k) / (np - 1));
   const long tasks = static_cast<long>(np) * static_cast<long>(cases.size());
@@ -419,6 +420,7 @@ json gust_summary_json(const Scenario& s, const RunOutcome& r, const TuneResult*
       grid.push_back({{"H_m", p.H}, {"amplitude_true_mps", p.amplitude}, {"peak_dn_held", num(p.peak_held)},
                       {"peak_dn_free", num(p.peak_free)}});
     j["tuned_gust"] = {{"gust", tune->gust + 1},
+                       {"grid_points", tune->grid_size},
                        {"metric", "peak |load-factor increment|"},
                        {"points", grid},
                        {"held", {{"H_m", num(tune->H_held)}, {"H_ft", num(tune->H_held / units::ft)}, {"peak_dn", num(tune->peak_held)}}},
@@ -442,8 +444,8 @@ std::string gust_table(const Scenario& s, const RunOutcome& r, const TuneResult*
     o += "  load-factor increment: rule " + f(e.estimate.delta_n, 3) + ", quasi-steady sharp edge " + f(e.sharp_edge, 3) +
          ", simulated held " + (sm.held ? f(sm.held->response.peak_dn, 3) : "-") + ", free " +
          (sm.free ? f(sm.free->response.peak_dn, 3) : "-") +
-         "\n  (K_g also stands for the lag of unsteady lift, which the quasi-steady model leaves out: expect the simulation "
-         "above the rule)\n";
+         "\n  (K_g is a plunge-only factor that also stands for the lag of unsteady lift; the simulation has quasi-steady "
+         "lift, without that lag, and pitches: expect it above the rule)\n";
   }
   const ResolvedTurbulence rt = resolve_turbulence(s);
   if (rt.active) {
@@ -456,8 +458,9 @@ std::string gust_table(const Scenario& s, const RunOutcome& r, const TuneResult*
   }
   if (tune && tune->active) {
     o += "\ntuned gust (gust " + std::to_string(tune->gust + 1) + "), peak |load-factor increment| against gradient distance H:\n";
-    std::vector<TunePoint> pts = tune->grid;
-    std::sort(pts.begin(), pts.end(), [](const TunePoint& a, const TunePoint& b) { return a.H < b.H; });
+    // the grid (both cases at each H), then the refinement of each case around its best point
+    const std::vector<TunePoint> pts(tune->grid.begin(),
+                                     tune->grid.begin() + static_cast<long>(std::min(tune->grid_size, tune->grid.size())));
     char line[160];
     std::snprintf(line, sizeof line, "  %10s %10s %12s %10s %10s\n", "H [ft]", "H [m]", "U [ft/s TAS]", "held", "free");
     o += line;
@@ -466,9 +469,9 @@ std::string gust_table(const Scenario& s, const RunOutcome& r, const TuneResult*
                     f(p.peak_held, 3).c_str(), f(p.peak_free, 3).c_str());
       o += line;
     }
-    o += "  worst: held H = " + f(tune->H_held / units::ft, 1) + " ft (peak " + f(tune->peak_held, 3) + "), free H = " +
-         f(tune->H_free / units::ft, 1) + " ft (peak " + f(tune->peak_free, 3) +
-         "); the runs above were made at these\n";
+    o += "  refined (golden section between the best grid point's neighbours): worst held H = " +
+         f(tune->H_held / units::ft, 1) + " ft (peak " + f(tune->peak_held, 3) + "), free H = " +
+         f(tune->H_free / units::ft, 1) + " ft (peak " + f(tune->peak_free, 3) + ")\n  the runs and the comparison above were made at each case's own worst H\n";
   }
   bool any_rule = false;
   for (const auto& d : s.gust_designs) any_rule = any_rule || d.rule != GustRule::amplitude;
@@ -522,6 +525,7 @@ const std::vector<Metric>& seed_metrics() {
     v.push_back({"stall_margin_deg", [](const CaseSummary& c) { return units::to_deg(c.response.stall_margin); }});
     v.push_back({"peak_abs_elevator_float_deg", [](const CaseSummary& c) { return units::to_deg(std::abs(c.response.peak_float)); }});
     v.push_back({"peak_abs_stick_force_N", [](const CaseSummary& c) { return std::abs(c.response.peak_force); }});
+    v.push_back({"departure_time_s", [](const CaseSummary& c) { return c.departed ? c.departure_time : NAN; }});
     return v;
   }();
   return m;
@@ -600,7 +604,8 @@ SeedsReport seeds_report(const Scenario& s, const SeedsResult& r) {
   }
   j["statistics"] =
       "per seed: RMS of the increments from trim and peaks over the window after the fade-in; across seeds: mean, "
-      "sample standard deviation (sd), min and max. Exceedance counts: times |increment| rises above the level. Free "
+      "sample standard deviation (sd), min and max (departure_time_s over the runs that departed only; a departed run's "
+      "figures end at its departure). Exceedance counts: times |increment| rises above the level. Free "
       "stick force = force to hold the elevator where it floated.";
   j["caution"] =
       "Engineering analysis aid only: results are only as good as the aerodynamic and hinge-moment data, which carry "

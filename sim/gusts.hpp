@@ -59,7 +59,8 @@ struct TunePoint {
 struct TuneResult {
   bool active = false;
   std::size_t gust = 0;
-  std::vector<TunePoint> grid;  // the grid, then the refinement points, in the order run
+  std::vector<TunePoint> grid;  // the grid (first grid_size entries), then the refinement points
+  std::size_t grid_size = 0;
   double H_held = NAN, peak_held = NAN, H_free = NAN, peak_free = NAN;
 };
 // Index of the tuned gust, or -1.
