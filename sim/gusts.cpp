@@ -309,6 +309,12 @@ std::string f(double v, int dec) {
   return b;
 }
 
+std::string g3(double v) {
+  char b[32];
+  std::snprintf(b, sizeof b, "%.3g", v);
+  return b;
+}
+
 // The scenario a case actually flew (a tuned gust at that case's gradient distance).
 Scenario case_scenario(const Scenario& s, const TuneResult* tune, Stick st) {
   if (!tune || !tune->active) return s;
@@ -451,7 +457,7 @@ std::string gust_table(const Scenario& s, const RunOutcome& r, const TuneResult*
   if (rt.active) {
     const auto& sp = rt.spec;
     o += std::string("\nturbulence: ") + (sp.model == TurbulenceModel::dryden ? "Dryden" : "von Karman") + ", P = " +
-         f(rt.probability * 1e3, 2) + "e-3, height " + f(rt.height / units::ft, 0) + " ft (" + rt.tables.band +
+         g3(rt.probability) + ", height " + f(rt.height / units::ft, 0) + " ft (" + rt.tables.band +
          "): sigma_u " + f(sp.sigma_u / units::ft, 2) + " ft/s, sigma_w " + f(sp.sigma_w / units::ft, 2) + " ft/s, L_u " +
          f(sp.L_u / units::ft, 0) + " ft, L_w " + f(sp.L_w / units::ft, 0) + " ft; seed " + std::to_string(s.turbulence.seed) +
          ", spacing " + f(sp.dx, 2) + " m\n";
@@ -617,7 +623,9 @@ SeedsReport seeds_report(const Scenario& s, const SeedsResult& r) {
                 s.turbulence.seed, r.seconds, "mean +- sd over seeds", "held", "free", "free/held");
   out.table = line;
   for (std::size_t m = 0; m < metrics.size(); ++m) {
-    auto ms = [&](int c) { return has[c] ? f(sp[c][m].mean, 3) + " +- " + f(sp[c][m].sd, 3) : std::string("-"); };
+    auto ms = [&](int c) {
+      return has[c] && sp[c][m].n > 0 ? f(sp[c][m].mean, 3) + " +- " + f(sp[c][m].sd, 3) : std::string("-");
+    };
     const std::string ratio = has[0] && has[1] && sp[0][m].mean != 0.0 ? f(sp[1][m].mean / sp[0][m].mean, 2) : "";
     std::snprintf(line, sizeof line, "%-36s %22s %22s %9s\n", metrics[m].name.c_str(), ms(0).c_str(), ms(1).c_str(),
                   ratio.c_str());

@@ -234,7 +234,16 @@ std::string comparison_table(const CaseSummary* held, const CaseSummary* free) {
   line("margin to stall angle [deg]", [](const ResponseMetrics& m) { return units::to_deg(m.stall_margin); }, 2);
   line("peak elevator float [deg]", [](const ResponseMetrics& m) { return units::to_deg(m.peak_float); }, 2);
   line("peak stick force (free: to hold) [N]", [](const ResponseMetrics& m) { return m.peak_force; }, 1);
-  line("damping ratio (log decrement of q)", [](const ResponseMetrics& m) { return m.damping; }, 3);
+  {
+    // no second peak of q after the gusts: an aperiodic (dead-beat) return, not a missing number
+    auto damp = [](const CaseSummary* c) {
+      if (!c) return std::string("-");
+      if (std::isfinite(c->response.damping)) return cell(c->response.damping, 3);
+      return c->departed || c->turbulence.active ? std::string("-") : std::string("aperiodic");
+    };
+    row(o, "damping ratio (log decrement of q)", damp(held), damp(free),
+        cell(ratio(f ? f->damping : nan_, h ? h->damping : nan_), 2));
+  }
   line("settling time, 5 % of peak q [s]", [](const ResponseMetrics& m) { return m.settling_time; }, 2);
   const bool turb = (held && held->turbulence.active) || (free && free->turbulence.active);
   if (turb) {
