@@ -90,6 +90,26 @@ int main(int argc, char** argv) {
 
   auto* keys = app.add_subcommand("keys", "print the scenario key reference (markdown)");
 
+  fp::cmd::ReportOpts report_o;
+  auto* report = app.add_subcommand("report", "write the reviewer's report: DIR/report.html (self-contained) and DIR/data/");
+  add_common(report, report_o.common, false);
+  report->add_option("--out", report_o.out, "output directory (default: report)");
+  report->add_option("--cg-range", report_o.cg_range, "FROM:TO: CG range of the sweep, fractions of MAC (default: automatic)");
+  report->add_option("--gusts", report_o.gusts,
+                     "gust cases (repeatable): scenario, or SHAPE:LENGTH:AMPLITUDE[:vertical|horizontal][@TIME] with "
+                     "SHAPE 1-cos|sharp|ramp, e.g. \"1-cos:25 m:3 m/s\" (default: the scenario's own disturbance)");
+  report->add_option("--hinge-band", report_o.hinge_band, "uncertainty band: +- percent on Ch_alpha and Ch_delta, uniform (default 25)")
+      ->check(CLI::Range(0.0, 99.0));
+  report->add_option("--sample", report_o.sample, "KEY=uniform(LO,HI) or KEY=normal(MEAN,SD): replaces the default band (repeatable)");
+  report->add_option("--samples", report_o.samples, "random samples of the band (default 40)")->check(CLI::Range(2, 5000));
+  report->add_option("--seed", report_o.seed, "random seed (same seed, same samples)");
+  report->add_option("--min-margin", report_o.min_margin, "minimum stick-free static margin for the aft CG limit [fraction of MAC]")
+      ->check(CLI::Range(0.0, 0.5));
+  report->add_option("--min-force-per-g", report_o.min_force_per_g, "minimum stick force per g for the aft CG limit [N/g]")
+      ->check(CLI::Range(0.0, 1000.0));
+  report->add_flag("--pdf", report_o.pdf, "also print DIR/report.pdf with headless Chromium");
+  report->add_option("--jobs", report_o.jobs, "threads (default: the number of cores)")->check(CLI::Range(1, 256));
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -105,5 +125,6 @@ int main(int argc, char** argv) {
   if (*sweep) return fp::cmd::sweep(sweep_o);
   if (*merge) return fp::cmd::merge(merge_o);
   if (*keys) return fp::cmd::keys();
+  if (*report) return fp::cmd::report(report_o);
   return fp::cmd::kBadInput;
 }

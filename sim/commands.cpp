@@ -19,6 +19,7 @@
 #include "sim/atomic_file.hpp"
 #include "sim/gusts.hpp"
 #include "sim/outputs.hpp"
+#include "sim/report.hpp"
 #include "sim/run.hpp"
 #include "sim/sweep.hpp"
 #include "sim/scenario.hpp"
@@ -371,6 +372,47 @@ int merge(const MergeOpts& o) {
     out.add("sweep.json", sweep_json(all).dump(2) + "\n");
     out.commit();
     std::cout << sweep_table(all) << "wrote " << o.out << "/sweep.csv and " << o.out << "/sweep.json\n";
+    return kOk;
+  });
+}
+
+int report(const ReportOpts& o) {
+  return guarded(o.common.scenario, [&] {
+    ReportOptions r;
+    r.scenario = o.common.scenario;
+    r.set = o.common.set;
+    r.out = o.out;
+    r.cg_range = o.cg_range;
+    r.gusts = o.gusts;
+    r.hinge_band = o.hinge_band / 100.0;
+    r.sample = o.sample;
+    r.samples = o.samples;
+    r.seed = o.seed;
+    r.min_margin = o.min_margin;
+    r.min_force_per_g = o.min_force_per_g;
+    r.pdf = o.pdf;
+    r.jobs = default_jobs(o.jobs);
+    const ReportData d = make_report(r);
+    OutputSet out(o.out);
+    const auto files = report_files(d);
+    for (const auto& [name, content] : files) out.add(name, content);
+    out.commit();
+    std::cout << "wrote " << o.out << "/report.html and " << files.size() - 1 << " data files in " << o.out << "/data/\n";
+    if (o.pdf) {
+      const std::string chromium = find_chromium();
+      if (chromium.empty()) {
+        std::cout << "--pdf: no PDF written: headless Chromium is not installed (looked for chromium and "
+                     "chromium-browser on the PATH, and $FLOATPITCH_CHROMIUM). Open report.html in a browser and "
+                     "print it, or install Chromium (Debian: apt-get install chromium).\n";
+      } else {
+        const std::string err = print_pdf(chromium, o.out + "/report.html", o.out + "/report.pdf");
+        if (!err.empty()) {
+          std::cerr << "error: --pdf: " << err << "; report.html and data/ are written, report.pdf is not\n";
+          return kBadInput;
+        }
+        std::cout << "wrote " << o.out << "/report.pdf\n";
+      }
+    }
     return kOk;
   });
 }

@@ -82,4 +82,20 @@ int merge(const MergeOpts& o);
 
 int keys();
 
+struct ReportOpts {
+  Common common;
+  std::string out = "report";
+  std::string cg_range;             // FROM:TO (fractions of MAC); empty: automatic
+  std::vector<std::string> gusts;   // gust choices; empty: the scenario's disturbance
+  double hinge_band = 25;           // +- % on Ch_alpha and Ch_delta (uniform)
+  std::vector<std::string> sample;  // KEY=uniform(LO,HI) | KEY=normal(M,SD): replaces the default band
+  int samples = 40;
+  unsigned long seed = 1;
+  double min_margin = 0.05;         // [-] for the aft CG limit
+  double min_force_per_g = 13.3;    // [N/g] for the aft CG limit
+  bool pdf = false;
+  int jobs = 0;                     // 0: the number of cores
+};
+int report(const ReportOpts& o);
+
 }  // namespace fp::cmd
