@@ -602,7 +602,7 @@ std::string sweep_plot(const ReportData& d, const std::string& id, bool damping)
     p.y = {"largest real part", "1/s"};
     p.series.push_back(line("stick held", cg, column(r, &PointResult::max_real_held), svg::Style::first, svg::Marker::dot));
     p.series.push_back(line("stick free", cg, column(r, &PointResult::max_real_free), svg::Style::second, svg::Marker::square));
-    p.spans.push_back({0.0, 1e9, "", true, true});
+    p.refs.push_back({false, 0.0, "above zero: diverges", svg::Style::reference});
     if (r.has_boundary) {
       if (std::isfinite(r.free.eigenvalue))
         p.refs.push_back({true, r.free.eigenvalue, "free diverges aft of " + pct(r.free.eigenvalue, 1), svg::Style::reference});
