@@ -21,6 +21,39 @@ std::string fixed(double v, int decimals) {
   return buf;
 }
 
+namespace {
+
+void append_fixed(std::string& out, char* buf, double v, int decimals) {
+  static constexpr long long pow10[] = {1, 10, 100, 1000, 10000, 100000, 1000000};
+  if (!std::isfinite(v) || std::abs(v) >= 1e12) {
+    const auto r = std::to_chars(buf, buf + 40, v);
+    out.append(buf, r.ptr);
+    return;
+  }
+  const long long scale = pow10[decimals];
+  long long n = std::llround(v * static_cast<double>(scale));
+  if (n < 0) {
+    out += '-';
+    n = -n;
+  }
+  const long long ip = n / scale, fp = n % scale;
+  auto r = std::to_chars(buf, buf + 40, ip);
+  out.append(buf, r.ptr);
+  if (fp == 0) return;
+  char frac[8];
+  long long f = fp;
+  for (int k = decimals - 1; k >= 0; --k) {
+    frac[k] = static_cast<char>('0' + f % 10);
+    f /= 10;
+  }
+  int len = decimals;
+  while (len > 0 && frac[len - 1] == '0') --len;
+  out += '.';
+  out.append(frac, static_cast<std::size_t>(len));
+}
+
+}  // namespace
+
 std::string trace_csv(const Trace& tr) {
   std::string out;
   out.reserve(tr.size() * ch_count * 12 + 512);
@@ -31,15 +64,14 @@ std::string trace_csv(const Trace& tr) {
     out += ci.unit;
     out += c + 1 < ch_count ? "]," : "]\n";
   }
-  // std::to_chars: shortest exact text (time, 4 decimals) or 7 significant digits, and several
-  // times faster than printf-style formatting for long runs
-  char buf[40];
+  // Fixed-point text: time with 4 decimals, every other value with 6 decimals (trailing zeros
+  // dropped), formatted through integers, several times faster than printf-style formatting
+  // (which dominated long runs); values beyond 1e12 or not finite fall back to std::to_chars.
+  char buf[48];
   for (std::size_t i = 0; i < tr.size(); ++i) {
     for (std::size_t c = 0; c < ch_count; ++c) {
       const double v = tr.ch[c][i] * channel_info(c).display;
-      const auto r = c == ch_time ? std::to_chars(buf, buf + sizeof buf, v, std::chars_format::fixed, 4)
-                                  : std::to_chars(buf, buf + sizeof buf, v, std::chars_format::general, 7);
-      out.append(buf, r.ptr);
+      append_fixed(out, buf, v, c == ch_time ? 4 : 6);
       out += c + 1 < ch_count ? ',' : '\n';
     }
   }
