@@ -370,9 +370,9 @@ void App::frame(float wall_dt) {
 // Toolbar
 
 void App::toolbar(const ImVec2& pos, const ImVec2& size) {
-  ImGui::PushStyleColor(ImGuiCol_WindowBg, IM_COL32(222, 220, 212, 255));
-  begin_panel("##toolbar", pos, size);
-  ImGui::PopStyleColor();
+  begin_panel("##toolbar", pos, size, ImGuiWindowFlags_NoBackground);
+  ImGui::GetWindowDrawList()->AddLine(ImVec2(pos.x, pos.y + size.y - 1), ImVec2(pos.x + size.x, pos.y + size.y - 1),
+                                      IM_COL32(200, 196, 186, 255));
   ImGui::SetCursorPosY(8.0f);
   const bool ok = ses_.loaded();
   if (!ok) ImGui::BeginDisabled();
@@ -488,7 +488,9 @@ void App::tab_scenario() {
   ImGui::SameLine();
   if (ImGui::Button("Open", ImVec2(-1, 0)) || enter) open(path_field_);
   if (!scenarios_dir_.empty()) {
-    ImGui::TextDisabled("in %s", scenarios_dir_.c_str());
+    std::error_code rec;
+    const std::string rel = fs::relative(scenarios_dir_, fs::current_path(rec), rec).string();
+    ImGui::TextDisabled("in %s", !rec && !rel.empty() && rel.rfind("..", 0) != 0 ? rel.c_str() : scenarios_dir_.c_str());
     std::vector<fs::path> files;
     std::error_code ec;
     for (const auto& dir : {fs::path(scenarios_dir_), fs::path(scenarios_dir_) / "aircraft"})
@@ -950,7 +952,9 @@ void App::modes_panel(const ImVec2& pos, const ImVec2& size) {
   const double rh = fp::largest_real_root(md.held, &mode_h);
   const double rf = md.has_free ? fp::largest_real_root(md.free, &mode_f) : -INFINITY;
   ImGui::PushFont(f_.small);
-  if (const fp::Margins* m = ses_.margins(); m && !ses_.margins_stale()) {
+  // while the slider is dragged the neutral points are those of the last position let go (they
+  // hardly move with the CG; the margins take many trims and follow when the slider is let go)
+  if (const fp::Margins* m = ses_.margins()) {
     if (cg > m->np_fixed.model)
       colored_wrapped(kWarnRed, fmt("CG %.3f is aft of the stick-FIXED neutral point ", cg) +
                                     fmt("%.3f: unstable even with the stick held.", m->np_fixed.model));
@@ -962,8 +966,8 @@ void App::modes_panel(const ImVec2& pos, const ImVec2& size) {
                                                  m->np_apparent.model)
                                            : std::string(".")));
     else
-      colored_wrapped(kOkGreen, fmt("Static margins at CG %.3f: ", cg) + fmt("stick-fixed %+.3f, ", m->margin_fixed) +
-                                    fmt("stick-free %+.3f (model).", m->margin_free));
+      colored_wrapped(kOkGreen, fmt("Static margins at CG %.3f: ", cg) + fmt("stick-fixed %+.3f, ", m->np_fixed.model - cg) +
+                                    fmt("stick-free %+.3f (model).", m->np_free.model - cg));
   } else {
     if (rh > fp::kDivergenceThreshold)
       colored_wrapped(kWarnRed, "Held airplane diverges at this CG (" + mode_h + fmt(" %+.3f /s).", rh));
@@ -1166,6 +1170,7 @@ void App::plots_panel(const ImVec2& pos, const ImVec2& size) {
     const char* l1;       // label of the main channel in the legend
     const char* l2;
     double min_span;
+    bool second_free_only = false;  // the second channel only for the free airplane
   };
   auto title_of = [](std::size_t ch) {
     const auto& ci = fp::channel_info(ch);
@@ -1177,7 +1182,7 @@ void App::plots_panel(const ImVec2& pos, const ImVec2& size) {
       {"q", title_of(fp::ch_q), fp::ch_q, fp::ch_count, "", "", 1.0},
       {"theta", title_of(fp::ch_theta), fp::ch_theta, fp::ch_count, "", "", 0.5},
       {"elevator", "elevator and tab (TE down +)  [deg]", fp::ch_elevator, fp::ch_tab, "elevator", "tab", 0.5},
-      {"stick_force", title_of(fp::ch_stick_force), fp::ch_stick_force, fp::ch_count, "", "", 2.0},
+      {"stick_force", title_of(fp::ch_stick_force), fp::ch_stick_force, fp::ch_hold_force, "", "(force to hold)", 2.0, true},
       {"airspeed", title_of(fp::ch_airspeed), fp::ch_airspeed, fp::ch_count, "", "", 0.5},
       {"altitude", title_of(fp::ch_altitude), fp::ch_altitude, fp::ch_count, "", "", 2.0},
       {"gust", "vertical gust (up +)  [m/s]", fp::ch_gust_w_wing, fp::ch_gust_w_tail, "wing", "tail", 1.0},
@@ -1206,11 +1211,12 @@ void App::plots_panel(const ImVec2& pos, const ImVec2& size) {
       ser.push_back(s);
     };
     const bool two = d.ch2 != fp::ch_count;
-    const std::string sh = two ? std::string("held ") + d.l1 : "held";
-    const std::string sf = two ? std::string("free ") + d.l1 : "free";
+    const bool two_named = two && !d.second_free_only;
+    const std::string sh = two_named ? std::string("held ") + d.l1 : "held";
+    const std::string sf = two_named ? std::string("free ") + d.l1 : "free";
     add(th, d.ch, sh, kHeld, 2.0f, false);
     if (tf) add(*tf, d.ch, sf, kFree, 2.0f, true);
-    if (two) add(th, d.ch2, std::string("held ") + d.l2, kHeld2, 1.0f, false);
+    if (two && !d.second_free_only) add(th, d.ch2, std::string("held ") + d.l2, kHeld2, 1.0f, false);
     if (two && tf) add(*tf, d.ch2, std::string("free ") + d.l2, kFree2, 1.0f, true);
     std::vector<RefLine> refs = k == 0 ? marks : marks_plain;
     if (d.ch == fp::ch_elevator) {

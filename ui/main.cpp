@@ -24,6 +24,7 @@
 
 #include "ui/app.hpp"
 #include "ui/imgui_sfml_bridge.hpp"
+#include "ui/theme.hpp"
 
 namespace {
 
@@ -186,7 +187,7 @@ int main(int argc, char** argv) {
         break;
       }
 
-      window.clear(sf::Color(236, 234, 228));
+      window.clear(sf::Color(fpui::kPaperRGB[0], fpui::kPaperRGB[1], fpui::kPaperRGB[2]));
       window.resetGLStates();
       app.draw_sfml(window);
       window.resetGLStates();

@@ -208,26 +208,31 @@ std::string tick_text(double v, double step) {
 }
 
 std::vector<std::size_t> reduce_min_max(const double* x, const double* y, std::size_t i0, std::size_t i1,
-                                        double x_lo, double x_hi, int columns) {
+                                        double x_lo, double x_hi, int columns, double y_tol) {
   std::vector<std::size_t> out;
   if (i1 <= i0 || columns <= 0 || !(x_hi > x_lo)) return out;
   out.reserve(static_cast<std::size_t>(columns) * 2 + 2);
-  const double w = (x_hi - x_lo) / columns;
+  const double per = columns / (x_hi - x_lo);
   auto push = [&](std::size_t k) {
     if (out.empty() || out.back() < k) out.push_back(k);
   };
   push(i0);
   std::size_t i = i0;
   while (i < i1) {
-    const double col = std::floor((x[i] - x_lo) / w);
+    // the column of sample i, and the x at which the next column begins
+    const double col = std::floor((x[i] - x_lo) * per);
+    const double next = x_lo + (col + 1.0) / per;
     std::size_t lo = i, hi = i;
-    while (i < i1 && std::floor((x[i] - x_lo) / w) == col) {
+    for (++i; i < i1 && x[i] < next; ++i) {
       if (y[i] < y[lo]) lo = i;
-      if (y[i] > y[hi]) hi = i;
-      ++i;
+      else if (y[i] > y[hi]) hi = i;
     }
-    push(std::min(lo, hi));
-    push(std::max(lo, hi));
+    if (y[hi] - y[lo] <= y_tol) {
+      push(lo);  // flat within the tolerance: one point stands for the column
+    } else {
+      push(std::min(lo, hi));
+      push(std::max(lo, hi));
+    }
   }
   push(i1 - 1);
   return out;
@@ -348,7 +353,7 @@ void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const 
   if (spec.geometry) *spec.geometry = PlotGeometry{m.p0, m.p1, m.x0, m.x1, m.y0, m.y1, {0, 0}, {0, 0}};
 
   // ---- frame, grid, ticks
-  dl->AddRectFilled(m.p0, m.p1, g_theme.background);
+  if ((g_theme.background >> IM_COL32_A_SHIFT) & 0xFF) dl->AddRectFilled(m.p0, m.p1, g_theme.background);
   dl->AddText(ImGui::GetFont(), ImGui::GetFontSize(), ImVec2(f0.x + 2.0f, f0.y), g_theme.title,
               spec.title.c_str());
   for (std::size_t k = 0; k < yt.size(); ++k) {
@@ -411,9 +416,11 @@ void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const 
     if (i1 <= i0) continue;
     if (s.line) {
       pts.clear();
-      const int columns = std::max(8, static_cast<int>(W / 2.0f));  // a min/max pair every 2 px
+      const int columns = std::max(8, static_cast<int>(W / 3.0f));  // a column every 3 px
       if (s.sorted_x && i1 - i0 > static_cast<std::size_t>(2 * columns) && s.x_factor > 0.0) {
-        const auto idx = reduce_min_max(s.x, s.y, i0, i1, X.lo / s.x_factor, X.hi / s.x_factor, columns);
+        // a column whose samples span less than a pixel is drawn with one point
+        const double y_tol = std::abs((Y.hi - Y.lo) / static_cast<double>(H) / s.y_factor);
+        const auto idx = reduce_min_max(s.x, s.y, i0, i1, X.lo / s.x_factor, X.hi / s.x_factor, columns, y_tol);
         pts.reserve(idx.size());
         for (std::size_t k : idx) pts.emplace_back(m.sx(s.x[k] * s.x_factor), m.sy(s.y[k] * s.y_factor));
       } else {

@@ -97,7 +97,7 @@ struct PlotSpec {
 
 // Colours and the small font used by every plot.
 struct PlotTheme {
-  ImU32 background = IM_COL32(251, 250, 247, 255);
+  ImU32 background = IM_COL32(0, 0, 0, 0);       // plot area fill (transparent: none drawn)
   ImU32 frame = IM_COL32(170, 166, 156, 255);
   ImU32 grid = IM_COL32(226, 223, 215, 255);
   ImU32 zero = IM_COL32(160, 156, 146, 255);
@@ -122,8 +122,9 @@ std::string tick_text(double v, double step);
 
 // Indices of a min/max reduction of samples [i0, i1) of a sorted series onto `columns`
 // equal columns of x between x_lo and x_hi: the first and the last sample, and for each
-// column its lowest and highest sample, in index order without repeats. Exposed for the tests.
+// column its lowest and highest sample, in index order without repeats; a column whose samples
+// span no more than y_tol is given by its lowest sample alone. Exposed for the tests.
 std::vector<std::size_t> reduce_min_max(const double* x, const double* y, std::size_t i0, std::size_t i1,
-                                        double x_lo, double x_hi, int columns);
+                                        double x_lo, double x_hi, int columns, double y_tol = 0.0);
 
 }  // namespace fpui

@@ -108,7 +108,7 @@ void Session::recompute_locus() {
   locus_key_ = std::move(key);
   locus_from_ = from;
   locus_to_ = to;
-  const int points = std::max(2, static_cast<int>(std::round((to - from) / 0.01)) + 1);
+  const int points = std::max(2, static_cast<int>(std::round((to - from) / 0.02)) + 1);
   locus_ = fp::cg_root_locus(scenario_, from, to, points);
 }
 

@@ -294,8 +294,8 @@ void draw_airplane(sf::VertexArray& va, const AirplaneDraw& A, const ToScreen& S
   }
   // fuselage
   std::vector<V2> up, lo;
-  for (int i = 0; i <= 60; ++i) {
-    const double s = i / 60.0;
+  for (int i = 0; i <= 36; ++i) {
+    const double s = i / 36.0;
     double t, b;
     A.profile(s, t, b);
     const double x = A.body.bx(A.station_aft(s));
@@ -306,8 +306,8 @@ void draw_airplane(sf::VertexArray& va, const AirplaneDraw& A, const ToScreen& S
   // canopy glass
   {
     std::vector<V2> gu, gl;
-    for (int i = 0; i <= 20; ++i) {
-      const double s = 0.285 + (0.53 - 0.285) * i / 20.0;
+    for (int i = 0; i <= 12; ++i) {
+      const double s = 0.285 + (0.53 - 0.285) * i / 12.0;
       double t, b;
       A.profile(s, t, b);
       const double belt = A.centre_z(s) - 0.47 * A.sz.height;
@@ -331,8 +331,8 @@ void draw_airplane(sf::VertexArray& va, const AirplaneDraw& A, const ToScreen& S
   {
     const double c = ap.wing.mac, z = ap.wing.z_ac;
     std::vector<V2> wu, wl;
-    for (int i = 0; i <= 24; ++i) {
-      const double xc = std::pow(i / 24.0, 1.6);
+    for (int i = 0; i <= 16; ++i) {
+      const double xc = std::pow(i / 16.0, 1.6);
       const double y = half_thickness(xc, 0.15) * c;
       wu.push_back(S(A.body.bx(xc * c), z - y));
       wl.push_back(S(A.body.bx(xc * c), z + y));
@@ -416,17 +416,10 @@ void SideView::draw(sf::RenderTarget& target, const sf::FloatRect& area, const f
     if (box || bold) boxed.push_back(t.getGlobalBounds());
   };
 
-  // background: a pale sky over a paler ground tone
-  {
-    const sf::Color top(233, 239, 242), bottom(246, 245, 240);
-    const V2 a(area.left, area.top), b(area.left + area.width, area.top + area.height);
-    va.append({a, top});
-    va.append({V2(b.x, a.y), top});
-    va.append({b, bottom});
-    va.append({a, top});
-    va.append({b, bottom});
-    va.append({V2(a.x, b.y), bottom});
-  }
+  // no fill of the whole area (every filled pixel costs a software renderer): a thin frame
+  thick_line(va, {V2(area.left, area.top), V2(area.left + area.width, area.top), V2(area.left + area.width, area.top + area.height),
+                  V2(area.left, area.top + area.height)},
+             1.0f, sf::Color(214, 210, 200), true);
 
   const float strip_h = 64.0f;
   const sf::FloatRect sky(area.left, area.top, area.width, area.height - strip_h);

@@ -7,6 +7,10 @@
 
 namespace fpui {
 
+// The window's background: the frame is cleared to it and the large panels draw no fill of
+// their own (with a software renderer every filled pixel costs).
+inline constexpr unsigned char kPaperRGB[3] = {248, 247, 243};
+
 // Held and free in the plots (RGB also used by the screenshot test through the layout file).
 inline constexpr unsigned char kHeldRGB[3] = {27, 42, 65};
 inline constexpr unsigned char kFreeRGB[3] = {224, 128, 20};

@@ -167,6 +167,12 @@ TEST_CASE("plot: the min/max reduction keeps the extremes in order") {
   CHECK(std::find(idx.begin(), idx.end(), 712u) != idx.end());
   CHECK(idx.front() == 0u);
   CHECK(idx.back() == 999u);
+  // with a tolerance, the smooth columns take one point and the spikes still come through
+  const auto few = reduce_min_max(x.data(), y.data(), 0, x.size(), 0.0, 10.0, 50, 0.7);
+  CHECK(few.size() < idx.size());
+  CHECK(std::find(few.begin(), few.end(), 437u) != few.end());
+  CHECK(std::find(few.begin(), few.end(), 712u) != few.end());
+  CHECK(std::is_sorted(few.begin(), few.end()));
 }
 
 TEST_CASE("session: held and free fly the same trim and part after a gust") {
