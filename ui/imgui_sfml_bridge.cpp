@@ -3,7 +3,6 @@
 
 #include <cfloat>
 
-#include <SFML/Window/Window.hpp>
 #include <imgui.h>
 
 namespace fpui {
@@ -110,9 +109,8 @@ void ImGuiSfmlBridge::process_event(const sf::Event& e) {
   }
 }
 
-void ImGuiSfmlBridge::new_frame(const sf::Window& window, float dt_seconds) {
+void ImGuiSfmlBridge::new_frame(sf::Vector2u size, float dt_seconds) {
   ImGuiIO& io = ImGui::GetIO();
-  const sf::Vector2u size = window.getSize();
   io.DisplaySize = ImVec2(static_cast<float>(size.x), static_cast<float>(size.y));
   io.DisplayFramebufferScale = ImVec2(1.0f, 1.0f);
   io.DeltaTime = dt_seconds > 0.0f ? dt_seconds : 1.0f / 60.0f;

@@ -11,11 +11,8 @@
 #include <array>
 
 #include <SFML/Window/Event.hpp>
+#include <SFML/System/Vector2.hpp>
 #include <SFML/Window/Keyboard.hpp>
-
-namespace sf {
-class Window;
-}
 
 namespace fpui {
 
@@ -27,8 +24,9 @@ class ImGuiSfmlBridge {
   // One SFML event; call for every polled event.
   void process_event(const sf::Event& e);
 
-  // Before ImGui::NewFrame(): display size, mouse position, held-over releases, delta time.
-  void new_frame(const sf::Window& window, float dt_seconds);
+  // Before ImGui::NewFrame(): display size (the window's size in pixels), mouse position,
+  // modifier keys, delta time.
+  void new_frame(sf::Vector2u window_size, float dt_seconds);
 
   // After the frame was built: deliver the releases held over from this frame, so that the
   // next frame sees them.

@@ -176,7 +176,7 @@ int main(int argc, char** argv) {
       }
       if (!window.isOpen()) break;
       const float dt = clock.restart().asSeconds();
-      bridge.new_frame(window, dt);
+      bridge.new_frame(window.getSize(), dt);
       ImGui_ImplOpenGL3_NewFrame();
       ImGui::NewFrame();
       app.frame(dt);

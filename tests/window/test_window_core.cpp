@@ -288,3 +288,110 @@ TEST_CASE("session: the export holds both runs, the scenario and the live inputs
   REQUIRE(t.install(back) == "");
   CHECK(t.trim().alpha == doctest::Approx(s.trim().alpha));
 }
+
+// ---------------------------------------------------------------------------------------------
+// The event bridge: a click or a key tap that begins and ends within one frame still reaches
+// ImGui (the release is held over to the next frame).
+
+#include <imgui.h>
+
+#include "ui/imgui_sfml_bridge.hpp"
+
+namespace {
+
+struct ImGuiFrames {
+  ImGuiSfmlBridge* bridge = nullptr;
+  ImGuiFrames() {
+    ImGui::CreateContext();
+    ImGuiIO& io = ImGui::GetIO();
+    io.IniFilename = nullptr;
+    unsigned char* px = nullptr;
+    int w = 0, h = 0;
+    io.Fonts->GetTexDataAsRGBA32(&px, &w, &h);  // builds the atlas; no renderer needed
+    bridge = new ImGuiSfmlBridge();
+  }
+  ~ImGuiFrames() {
+    delete bridge;
+    ImGui::DestroyContext();
+  }
+  // One frame with these events; `ui` builds the interface and returns what it saw.
+  template <class F>
+  auto frame(const std::vector<sf::Event>& events, F ui) {
+    for (const auto& e : events) bridge->process_event(e);
+    bridge->new_frame(sf::Vector2u(400, 300), 1.0f / 60.0f);
+    ImGui::NewFrame();
+    ImGui::SetNextWindowPos(ImVec2(0, 0));
+    ImGui::SetNextWindowSize(ImVec2(400, 300));
+    ImGui::Begin("test", nullptr, ImGuiWindowFlags_NoTitleBar);
+    auto r = ui();
+    ImGui::End();
+    ImGui::Render();
+    bridge->end_frame();
+    return r;
+  }
+};
+
+sf::Event mouse(sf::Event::EventType t, int x, int y) {
+  sf::Event e;
+  e.type = t;
+  if (t == sf::Event::MouseMoved) {
+    e.mouseMove.x = x;
+    e.mouseMove.y = y;
+  } else {
+    e.mouseButton.button = sf::Mouse::Left;
+    e.mouseButton.x = x;
+    e.mouseButton.y = y;
+  }
+  return e;
+}
+
+sf::Event key(sf::Event::EventType t, sf::Keyboard::Key k) {
+  sf::Event e;
+  e.type = t;
+  e.key.code = k;
+  e.key.alt = e.key.control = e.key.shift = e.key.system = false;
+  return e;
+}
+
+}  // namespace
+
+TEST_CASE("bridge: a click within one frame presses a button") {
+  ImGuiFrames f;
+  auto button = [] {
+    ImGui::SetCursorPos(ImVec2(20, 20));
+    return ImGui::Button("go", ImVec2(100, 40));
+  };
+  f.frame({mouse(sf::Event::MouseMoved, 60, 40)}, button);
+  // press and release arrive together
+  const auto first = f.frame({mouse(sf::Event::MouseButtonPressed, 60, 40), mouse(sf::Event::MouseButtonReleased, 60, 40)},
+                             [&] {
+                               const bool down = ImGui::GetIO().MouseDown[0];
+                               const bool clicked = button();
+                               return std::pair<bool, bool>(down, clicked);
+                             });
+  CHECK(first.first);  // ImGui saw the button down in that frame
+  CHECK_FALSE(first.second);
+  const bool clicked = f.frame({}, button);  // the held-over release completes the click
+  CHECK(clicked);
+  CHECK_FALSE(ImGui::GetIO().MouseDown[0]);
+  // a click outside the button does nothing
+  f.frame({mouse(sf::Event::MouseButtonPressed, 300, 250), mouse(sf::Event::MouseButtonReleased, 300, 250)}, button);
+  CHECK_FALSE(f.frame({}, button));
+}
+
+TEST_CASE("bridge: a key tap within one frame is seen as pressed") {
+  ImGuiFrames f;
+  auto pressed_g = [] { return ImGui::IsKeyPressed(sf::Keyboard::G, false); };
+  CHECK_FALSE(f.frame({}, pressed_g));
+  CHECK(f.frame({key(sf::Event::KeyPressed, sf::Keyboard::G), key(sf::Event::KeyReleased, sf::Keyboard::G)}, pressed_g));
+  CHECK_FALSE(f.frame({}, pressed_g));
+  CHECK_FALSE(ImGui::GetIO().KeysDown[sf::Keyboard::G]);
+  // text input skips control characters
+  sf::Event t;
+  t.type = sf::Event::TextEntered;
+  t.text.unicode = 'x';
+  sf::Event bs = t;
+  bs.text.unicode = 8;  // backspace arrives as a key, not as text
+  f.frame({t, bs}, [] { return 0; });
+  CHECK(ImGui::GetIO().InputQueueCharacters.Size == 0);  // consumed by the frame that got them
+}
