@@ -49,6 +49,18 @@ void tooltip(const std::string& text) {
   }
 }
 
+// One choice of a segmented control: a small button, filled in the accent colour when chosen.
+bool segment(const char* label, bool chosen) {
+  if (chosen) {
+    ImGui::PushStyleColor(ImGuiCol_Button, ImGui::ColorConvertU32ToFloat4(kAccent));
+    ImGui::PushStyleColor(ImGuiCol_ButtonHovered, ImGui::ColorConvertU32ToFloat4(kAccent));
+    ImGui::PushStyleColor(ImGuiCol_Text, ImVec4(1, 1, 1, 1));
+  }
+  const bool pressed = ImGui::SmallButton(label);
+  if (chosen) ImGui::PopStyleColor(3);
+  return pressed;
+}
+
 void colored_wrapped(ImU32 col, const std::string& text) {
   ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(col));
   ImGui::TextWrapped("%s", text.c_str());
@@ -253,6 +265,11 @@ bool App::run_action(const Action& a) {
     case ActionKind::exaggeration: exaggeration_ = a.value; break;
     case ActionKind::pause: running_ = false; break;
     case ActionKind::panel: left_tab_request_ = a.panel; break;
+    case ActionKind::hover:
+      mouse_scripted_ = true;
+      mouse_x_ = a.x;
+      mouse_y_ = a.y;
+      break;
     case ActionKind::roots:
       roots_fit_ = a.roots;
       roots_refit_ = true;
@@ -305,7 +322,10 @@ void App::handle_keys() {
     running_ = false;
     step_request_ = true;
   }
-  if (pressed(K::A)) ses_.run_all_at_once(), running_ = false;
+  if (pressed(K::A)) {
+    ses_.run_all_at_once();
+    running_ = false;
+  }
   if (pressed(K::R)) ses_.reset();
   if (pressed(K::G)) gust_now();
   if (pressed(K::L)) toggle_hold();
@@ -491,12 +511,19 @@ void App::tab_scenario() {
     std::error_code rec;
     const std::string rel = fs::relative(scenarios_dir_, fs::current_path(rec), rec).string();
     ImGui::TextDisabled("in %s", !rec && !rel.empty() && rel.rfind("..", 0) != 0 ? rel.c_str() : scenarios_dir_.c_str());
-    std::vector<fs::path> files;
+    // the folder is read again when it changes and about every two seconds
     std::error_code ec;
-    for (const auto& dir : {fs::path(scenarios_dir_), fs::path(scenarios_dir_) / "aircraft"})
-      for (auto it = fs::directory_iterator(dir, ec); !ec && it != fs::directory_iterator(); it.increment(ec))
-        if (it->path().extension() == ".toml") files.push_back(it->path());
-    std::sort(files.begin(), files.end());
+    if (listed_dir_ != scenarios_dir_ || ImGui::GetFrameCount() >= list_refresh_frame_) {
+      listed_dir_ = scenarios_dir_;
+      list_refresh_frame_ = ImGui::GetFrameCount() + 120;
+      listed_files_.clear();
+      for (const auto& dir : {fs::path(scenarios_dir_), fs::path(scenarios_dir_) / "aircraft"})
+        for (auto it = fs::directory_iterator(dir, ec); !ec && it != fs::directory_iterator(); it.increment(ec))
+          if (it->path().extension() == ".toml") listed_files_.push_back(it->path());
+      std::sort(listed_files_.begin(), listed_files_.end());
+      ec.clear();
+    }
+    const std::vector<fs::path>& files = listed_files_;
     ImGui::BeginChild("##files", ImVec2(0, std::min(6.0f, static_cast<float>(files.size()) + 0.4f) *
                                                ImGui::GetTextLineHeightWithSpacing()),
                       true);
@@ -869,10 +896,10 @@ void App::side_panel(const ImVec2& pos, const ImVec2& size) {
   begin_panel("##side", pos, size, ImGuiWindowFlags_NoBackground | ImGuiWindowFlags_NoScrollbar);
   caption(f_, "SIDE VIEW");
   ImGui::SameLine(110);
-  ImGui::SetCursorPosY(ImGui::GetCursorPosY() - 3);
-  if (ImGui::RadioButton("side by side", !superposed_)) superposed_ = false;
-  ImGui::SameLine();
-  if (ImGui::RadioButton("superposed", superposed_)) superposed_ = true;
+  ImGui::SetCursorPosY(ImGui::GetCursorPosY() - 1);
+  if (segment("side by side", !superposed_)) superposed_ = false;
+  ImGui::SameLine(0, 2);
+  if (segment("superposed", superposed_)) superposed_ = true;
   tooltip("Held and free airplanes next to each other, or drawn on top of each other (free dashed).  [V]");
   const float top = 28.0f;
   side_rect_ = sf::FloatRect(pos.x + 4.0f, pos.y + top, size.x - 8.0f, size.y - top - 4.0f);
@@ -1044,15 +1071,15 @@ void App::modes_panel(const ImVec2& pos, const ImVec2& size) {
   // which roots the view fits: the airframe's (the fast elevator mode would squeeze the rest
   // into a corner), all of them, or the slow ones near the origin
   const ImVec2 keep = ImGui::GetCursorPos();
-  ImGui::SetCursorPos(ImVec2(ImGui::GetWindowWidth() - 210.0f, keep.y - 1.0f));
+  ImGui::SetCursorPos(ImVec2(ImGui::GetWindowWidth() - 180.0f, keep.y));
   ImGui::PushFont(f_.small);
   ImGui::TextDisabled("fit");
   const char* fits[] = {"airframe", "all", "slow"};
   const char* fit_tips[] = {"the airframe's modes: short period, phugoid, divergences (not the elevator mode)",
                             "every root", "the roots within 2 /s of the origin"};
   for (int i = 0; i < 3; ++i) {
-    ImGui::SameLine();
-    if (ImGui::RadioButton(fits[i], roots_fit_ == i)) {
+    ImGui::SameLine(0, i == 0 ? 6.0f : 2.0f);
+    if (segment(fits[i], roots_fit_ == i)) {
       roots_fit_ = i;
       roots_refit_ = true;
     }

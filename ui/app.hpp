@@ -9,6 +9,7 @@
 #pragma once
 
 #include <array>
+#include <filesystem>
 #include <map>
 #include <string>
 #include <vector>
@@ -61,6 +62,12 @@ class App {
   // Write the run's files (CSVs, scenario, actions) to `dir`; returns the error or "".
   std::string export_run(const std::string& dir);
   const Session& session() const { return ses_; }
+  // A mouse position a script asked for (window pixels), applied before the next frame.
+  bool scripted_mouse(float& x, float& y) const {
+    x = mouse_x_;
+    y = mouse_y_;
+    return mouse_scripted_;
+  }
 
  private:
   void open(const std::string& path);
@@ -109,6 +116,9 @@ class App {
   std::string path_field_, save_field_, export_dir_ = "floatpitch-view-out";
   std::vector<std::string> recent_;
   std::string scenarios_dir_;
+  std::string listed_dir_;                       // the folder listing, refreshed now and then
+  std::vector<std::filesystem::path> listed_files_;
+  int list_refresh_frame_ = 0;
   // messages
   std::string message_, edit_error_, edit_ok_, fatal_;
   std::string screenshot_request_;
@@ -129,6 +139,8 @@ class App {
     }
   } roots_;
   int left_tab_request_ = -1;
+  bool mouse_scripted_ = false;
+  float mouse_x_ = 0, mouse_y_ = 0;
   std::vector<std::pair<std::string, PlotGeometry>> geometry_;
   // CG slider
   float cg_slider_ = 0.25f;

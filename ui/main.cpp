@@ -177,6 +177,7 @@ int main(int argc, char** argv) {
       if (!window.isOpen()) break;
       const float dt = clock.restart().asSeconds();
       bridge.new_frame(window.getSize(), dt);
+      if (float mx, my; app.scripted_mouse(mx, my)) io.MousePos = ImVec2(mx, my);
       ImGui_ImplOpenGL3_NewFrame();
       ImGui::NewFrame();
       app.frame(dt);

@@ -507,7 +507,7 @@ void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const 
           spec.geometry->legend0 = a;
           spec.geometry->legend1 = b;
         }
-        dl->AddRectFilled(a, b, g_theme.legend_bg, 2.0f);
+        dl->AddRectFilled(a, b, g_theme.legend_bg);
         float y = a.y + pad * 0.5f;
         for (std::size_t k = 0; k < series.size(); ++k) {
           if (!series[k].in_legend) continue;

@@ -169,6 +169,10 @@ std::vector<Action> parse_script(const std::string& text, const std::string& nam
       for (int i = 0; i < 4; ++i)
         if (v == names[i]) a.panel = i;
       if (a.panel < 0) p.fail("unknown panel \"" + v + "\" (use scenario, edit, inputs or analysis)");
+    } else if (verb == "hover") {
+      a.kind = ActionKind::hover;
+      a.x = static_cast<float>(p.number("x in pixels"));
+      a.y = static_cast<float>(p.number("y in pixels"));
     } else if (verb == "roots") {
       a.kind = ActionKind::roots;
       const std::string& v = p.word("airframe, all or slow");
@@ -179,7 +183,7 @@ std::vector<Action> parse_script(const std::string& text, const std::string& nam
     } else {
       p.fail("unknown action \"" + verb +
              "\" (let_go, take_hold, gust, tab, pulse, cg, set, reset, speed, jump, span, view, "
-             "exaggeration, pause, panel, roots)");
+             "exaggeration, pause, panel, roots, hover)");
     }
     p.done();
     out.push_back(a);
@@ -224,6 +228,7 @@ std::string action_line(const Action& a) {
       const char* names[] = {"scenario", "edit", "inputs", "analysis"};
       return s + "panel " + names[std::clamp(a.panel, 0, 3)];
     }
+    case ActionKind::hover: return s + "hover " + num(a.x) + " " + num(a.y);
     case ActionKind::roots: return s + "roots " + (a.roots == 1 ? "all" : a.roots == 2 ? "slow" : "airframe");
   }
   return s;

@@ -20,6 +20,7 @@
 //   at 0    panel edit                   left panel shown: scenario, edit, inputs or analysis
 //   at 0    roots slow                   complex plane fitted to: airframe (modes without the elevator's), all, slow (|root| < 2 /s)
 //   at 9.5  pause                        stop the simulated time
+//   at 3    hover 520 400                put the mouse pointer at window pixel (x, y) (shows the readouts)
 //
 // Times are simulated seconds. Actions run in the order written, each when the simulated time
 // reaches its time (times must not decrease). Errors name the file and the line.
@@ -33,7 +34,7 @@
 namespace fpui {
 
 enum class ActionKind {
-  let_go, take_hold, gust, tab, pulse, cg, set, reset, speed, jump, span, view, exaggeration, pause, panel, roots
+  let_go, take_hold, gust, tab, pulse, cg, set, reset, speed, jump, span, view, exaggeration, pause, panel, roots, hover
 };
 
 struct Action {
@@ -47,6 +48,7 @@ struct Action {
   bool superposed = false;    // view
   int panel = 0;              // panel: 0 scenario, 1 edit, 2 inputs, 3 analysis
   int roots = 0;              // roots: 0 airframe, 1 all, 2 slow
+  float x = 0, y = 0;         // hover: window pixels
   int line = 0;               // where it was written
 };
 

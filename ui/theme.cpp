@@ -41,13 +41,14 @@ Fonts load_fonts() {
 
 void apply_theme() {
   ImGuiStyle& s = ImGui::GetStyle();
+  // square corners: a rounded corner costs a software renderer a fan of small triangles
   s.WindowRounding = 0.0f;
-  s.ChildRounding = 2.0f;
-  s.FrameRounding = 2.5f;
-  s.PopupRounding = 2.0f;
-  s.GrabRounding = 2.0f;
-  s.TabRounding = 2.5f;
-  s.ScrollbarRounding = 3.0f;
+  s.ChildRounding = 0.0f;
+  s.FrameRounding = 0.0f;
+  s.PopupRounding = 0.0f;
+  s.GrabRounding = 0.0f;
+  s.TabRounding = 0.0f;
+  s.ScrollbarRounding = 0.0f;
   s.WindowBorderSize = 0.0f;
   s.FrameBorderSize = 1.0f;
   s.WindowPadding = ImVec2(8, 6);
