@@ -3,6 +3,7 @@
 #include "ui/app.hpp"
 
 #include <algorithm>
+#include <cfloat>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
@@ -374,7 +375,13 @@ void App::frame(float wall_dt) {
   }
 
   const ImVec2 d = ImGui::GetIO().DisplaySize;
-  const float bar_h = 42.0f, status_h = 40.0f, left_w = 340.0f;
+  // the status line is as tall as the cautions need at this width: they are always shown whole
+  const float msg_w = message_width();
+  const std::string caution = std::string("CAUTION  ") + kCautions;
+  const float caution_h =
+      f_.small->CalcTextSizeA(f_.small->FontSize, FLT_MAX, std::max(200.0f, d.x - msg_w - 30.0f), caution.c_str()).y;
+  const float bar_h = 42.0f, status_h = std::max(40.0f, caution_h + 12.0f);
+  const float left_w = std::clamp(std::floor(d.x * 0.265f), 250.0f, 360.0f);
   const float body_h = std::max(200.0f, d.y - bar_h - status_h);
   const float right_w = std::max(300.0f, d.x - left_w);
   const float band_h = std::max(230.0f, std::floor(body_h * 0.40f));
@@ -446,14 +453,16 @@ void App::toolbar(const ImVec2& pos, const ImVec2& size) {
   tooltip(fmt("Trim tab %.1f deg trailing edge down, both airplanes.  [ ] ]", tab_step_deg_));
   ImGui::SameLine();
   ImGui::TextDisabled("tab %+.1f°", to_deg(ses_.tab()));
+  const float last_x = ImGui::GetItemRectMax().x - ImGui::GetWindowPos().x;
   if (!ok) ImGui::EndDisabled();
 
-  // right: what the two airplanes are doing
-  if (ok) {
-    const std::string h = "held: " + held_pose_.state;
-    const std::string fr = has_free ? "free: " + free_pose_.state : "free: none (irreversible circuit)";
-    const float w = ImGui::CalcTextSize(h.c_str()).x + ImGui::CalcTextSize(fr.c_str()).x + 40.0f;
-    ImGui::SameLine(std::max(ImGui::GetCursorPosX() + 10.0f, size.x - w - 10.0f));
+  // right: what the two airplanes are doing (when there is room; the side view says it too)
+  const std::string h = ok ? "held: " + held_pose_.state : std::string();
+  const std::string fr = !ok ? std::string() : has_free ? "free: " + free_pose_.state : "free: none (irreversible circuit)";
+  const float w = ImGui::CalcTextSize(h.c_str()).x + ImGui::CalcTextSize(fr.c_str()).x + 26.0f;
+  if (ok && last_x + 24.0f + w < size.x) {
+    ImGui::SameLine(size.x - w - 10.0f);
+    ImGui::SetCursorPosY(8.0f);
     ImGui::PushStyleColor(ImGuiCol_Text, ImGui::ColorConvertU32ToFloat4(kHeld));
     ImGui::TextUnformatted(h.c_str());
     ImGui::PopStyleColor();
@@ -1101,7 +1110,7 @@ void App::modes_panel(const ImVec2& pos, const ImVec2& size) {
   const AxisRange before_x = modes_x_, before_y = modes_y_;
   PlotSpec ps;
   ps.id = "##roots";
-  ps.title = "roots: real [1/s], imaginary [rad/s]";
+  ps.title = "roots  [1/s]";
   ps.x_unit = "1/s";
   ps.y_unit = "rad/s";
   ps.x = &modes_x_;
@@ -1275,6 +1284,11 @@ void App::plots_panel(const ImVec2& pos, const ImVec2& size) {
 // =============================================================================================
 // Status line: the cautions, always
 
+float App::message_width() const {
+  if (message_.empty()) return 0.0f;
+  return std::min(360.0f, f_.small->CalcTextSizeA(f_.small->FontSize, FLT_MAX, 0.0f, message_.c_str()).x + 16.0f);
+}
+
 void App::status_line(const ImVec2& pos, const ImVec2& size) {
   ImGui::PushStyleColor(ImGuiCol_WindowBg, IM_COL32(44, 52, 60, 255));
   ImGui::PushStyleVar(ImGuiStyleVar_WindowPadding, ImVec2(10, 4));
@@ -1282,10 +1296,10 @@ void App::status_line(const ImVec2& pos, const ImVec2& size) {
   ImGui::PopStyleVar();
   ImGui::PopStyleColor();
   ImGui::PushFont(f_.small);
-  const float msg_w = message_.empty() ? 0.0f : std::min(360.0f, ImGui::CalcTextSize(message_.c_str()).x + 16.0f);
+  const float msg_w = message_width();
   ImGui::PushStyleColor(ImGuiCol_Text, IM_COL32(240, 226, 190, 255));
   ImGui::PushTextWrapPos(size.x - msg_w - 10.0f);
-  ImGui::TextWrapped("CAUTION  %s", kCautions);
+  ImGui::TextWrapped("%s", (std::string("CAUTION  ") + kCautions).c_str());
   ImGui::PopTextWrapPos();
   ImGui::PopStyleColor();
   if (!message_.empty()) {

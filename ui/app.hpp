@@ -87,6 +87,7 @@ class App {
   void modes_panel(const ImVec2& pos, const ImVec2& size);
   void plots_panel(const ImVec2& pos, const ImVec2& size);
   void status_line(const ImVec2& pos, const ImVec2& size);
+  float message_width() const;  // room the last message takes at the right of the status line
   void key_row(const fp::KeyInfo& k);
   void remember_recent(const std::string& path);
 

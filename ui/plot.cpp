@@ -354,8 +354,11 @@ void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const 
 
   // ---- frame, grid, ticks
   if ((g_theme.background >> IM_COL32_A_SHIFT) & 0xFF) dl->AddRectFilled(m.p0, m.p1, g_theme.background);
-  dl->AddText(ImGui::GetFont(), ImGui::GetFontSize(), ImVec2(f0.x + 2.0f, f0.y), g_theme.title,
-              spec.title.c_str());
+  {
+    const ImVec4 clip(f0.x, f0.y, f1.x - 2.0f, f0.y + title_h);  // a long title stops at the plot's edge
+    dl->AddText(ImGui::GetFont(), ImGui::GetFontSize(), ImVec2(f0.x + 2.0f, f0.y), g_theme.title, spec.title.c_str(),
+                nullptr, 0.0f, &clip);
+  }
   for (std::size_t k = 0; k < yt.size(); ++k) {
     const float y = m.sy(yt[k]);
     dl->AddLine(ImVec2(m.p0.x, y), ImVec2(m.p1.x, y), yt[k] == 0.0 ? g_theme.zero : g_theme.grid, 1.0f);

@@ -443,7 +443,7 @@ void SideView::draw(sf::RenderTarget& target, const sf::FloatRect& area, const f
   }
 
   const float region_w = slots.back().r.width;
-  const float label_h = superposed && free ? 68.0f : 36.0f, inset_h = 50.0f;
+  const float label_h = superposed && free ? 68.0f : slots.back().r.width < 300.0f ? 42.0f : 36.0f, inset_h = 50.0f;
   const float plane_h = sky.height - label_h - inset_h;
   const float scale = static_cast<float>(std::min(0.74 * region_w / A.sz.len, plane_h / (0.42 * A.sz.len)));
   for (std::size_t k = 0; k < slots.size(); ++k) {
@@ -485,9 +485,16 @@ void SideView::draw(sf::RenderTarget& target, const sf::FloatRect& area, const f
     const float ty = sl.r.top + 4.0f + (superposed ? 34.0f * static_cast<float>(k) : 0.0f);
     text(std::string(sl.name) + "  " + p.state, tx, ty, 12, sl.pal->line, 0.0f, true);
     char b[200];
-    std::snprintf(b, sizeof b, "θ %+.1f°   α %+.1f°   δe %+.1f°   tab %+.1f°", fp::units::to_deg(p.theta),
-                  fp::units::to_deg(p.alpha), fp::units::to_deg(p.de), fp::units::to_deg(p.tab));
-    text(b, tx, ty + 16.0f, 11, kInk, 0.0f, false, true);
+    if (sl.r.width >= 300.0f || superposed) {
+      std::snprintf(b, sizeof b, "θ %+.1f°   α %+.1f°   δe %+.1f°   tab %+.1f°", fp::units::to_deg(p.theta),
+                    fp::units::to_deg(p.alpha), fp::units::to_deg(p.de), fp::units::to_deg(p.tab));
+      text(b, tx, ty + 16.0f, 11, kInk, 0.0f, false, true);
+    } else {  // narrow: the readout on two lines
+      std::snprintf(b, sizeof b, "θ %+.1f°  α %+.1f°", fp::units::to_deg(p.theta), fp::units::to_deg(p.alpha));
+      text(b, tx, ty + 15.0f, 10, kInk, 0.0f, false, true);
+      std::snprintf(b, sizeof b, "δe %+.1f°  tab %+.1f°", fp::units::to_deg(p.de), fp::units::to_deg(p.tab));
+      text(b, tx, ty + 27.0f, 10, kInk, 0.0f, false, true);
+    }
     // the tail magnified, in body axes, with the elevator's zero line
     {
       const double ct = A.sz.cs + ap.elevator.chord;
