@@ -242,6 +242,54 @@ bool Simulation::advance_to(double target) {
     derivatives(*plant_, gust_, x, ctl_, t, dxdt, nullptr);
   };
   const double tiny = 1e-12;
+  // Sample the output grid inside the stepper's last step, up to `upto`, and check for a
+  // departure there and at the step's end (once). Returns false on a departure. The stepper
+  // may already be ahead of t_ from an earlier call (a live loop advancing in slices): the grid
+  // points of that step up to the new stop are sampled here, so slicing changes nothing.
+  auto sample = [&](double upto, double stop) {
+    const double t_before = st.dense.previous_time();
+    while (true) {
+      const double tk = static_cast<double>(out_index_) * settings_.output_step;
+      if (tk > upto + tiny || tk > settings_.duration + tiny) break;
+      State xk;
+      st.dense.calc_state(tk, xk);
+      std::string why;
+      if (check_departure(tk, xk, why)) {
+        // bisect the crossing time inside this step on the dense output
+        double lo = std::max(t_before, tk - settings_.output_step), hi = tk;
+        State xm;
+        for (int i = 0; i < 50; ++i) {
+          const double mid = 0.5 * (lo + hi);
+          st.dense.calc_state(mid, xm);
+          std::string w2;
+          if (check_departure(mid, xm, w2)) hi = mid; else lo = mid;
+        }
+        dep_ = Departure{true, hi, why};
+        record(tk, xk);
+        t_ = tk;
+        x_ = xk;
+        done_ = true;
+        return false;
+      }
+      record(tk, xk);
+      ++out_index_;
+    }
+    // a departure between grid points (a short excursion) counts too
+    const double t_after = st.dense.current_time();
+    if (t_after <= stop + tiny && t_after > end_checked_) {
+      end_checked_ = t_after;
+      std::string why;
+      const State& xs = st.dense.current_state();
+      if (check_departure(t_after, xs, why)) {
+        dep_ = Departure{true, t_after, why};
+        t_ = t_after;
+        x_ = xs;
+        done_ = true;
+        return false;
+      }
+    }
+    return true;
+  };
   while (t_ < target - tiny) {
     // the next stop: the target or the next event, whichever comes first
     double stop = target;
@@ -251,6 +299,10 @@ bool Simulation::advance_to(double target) {
       const double dt0 = std::min(settings_.output_step, 1e-3);
       st.dense.initialize(x_, t_, dt0);
       st.initialised = true;
+      end_checked_ = t_;
+    } else if (st.dense.current_time() > t_ + tiny) {
+      // the stepper is ahead of t_: first the grid points of its last step up to `stop`
+      if (!sample(std::min(st.dense.current_time(), stop), stop)) return false;
     }
     // step until the stepper has passed `stop`
     while (st.dense.current_time() < stop - tiny) {
@@ -274,45 +326,7 @@ bool Simulation::advance_to(double target) {
       ++stats_.steps;
       stats_.min_step = stats_.steps == 1 ? h : std::min(stats_.min_step, h);
       stats_.max_step = std::max(stats_.max_step, h);
-      // sample the grid inside this step (up to `stop`), checking for a departure
-      const double upto = std::min(t_after, stop);
-      while (true) {
-        const double tk = static_cast<double>(out_index_) * settings_.output_step;
-        if (tk > upto + tiny || tk > settings_.duration + tiny) break;
-        State xk;
-        st.dense.calc_state(tk, xk);
-        std::string why;
-        if (check_departure(tk, xk, why)) {
-          // bisect the crossing time inside this step on the dense output
-          double lo = std::max(t_before, tk - settings_.output_step), hi = tk;
-          State xm;
-          for (int i = 0; i < 50; ++i) {
-            const double mid = 0.5 * (lo + hi);
-            st.dense.calc_state(mid, xm);
-            std::string w2;
-            if (check_departure(mid, xm, w2)) hi = mid; else lo = mid;
-          }
-          dep_ = Departure{true, hi, why};
-          record(tk, xk);
-          t_ = tk;
-          x_ = xk;
-          done_ = true;
-          return false;
-        }
-        record(tk, xk);
-        ++out_index_;
-      }
-      // a departure between grid points (a short excursion) counts too
-      if (t_after <= stop) {
-        std::string why;
-        if (check_departure(t_after, xs, why)) {
-          dep_ = Departure{true, t_after, why};
-          t_ = t_after;
-          x_ = xs;
-          done_ = true;
-          return false;
-        }
-      }
+      if (!sample(std::min(t_after, stop), stop)) return false;
     }
     st.dense.calc_state(stop, x_);
     t_ = stop;

@@ -124,6 +124,7 @@ class Simulation {
   Departure dep_;
   SolverStats stats_;
   bool done_ = false;
+  double end_checked_ = -1.0;    // last step end checked for a departure [s]
   std::shared_ptr<Stepper> stepper_;
 };
 
