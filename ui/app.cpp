@@ -9,6 +9,7 @@
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
+#include <limits>
 #include <sstream>
 
 #include <SFML/Window/Keyboard.hpp>
@@ -369,6 +370,11 @@ void App::frame(float wall_dt) {
       marks_.np_apparent = m->np_apparent.model;
       marks_.mp_fixed = m->mp_fixed.model;
       marks_.mp_free = m->mp_free.model;
+      if (!ses_.scenario().airplane.circuit.reversible) {
+        // an irreversible circuit has no stick-free case: no stick-free points either
+        marks_.np_free = marks_.np_apparent = marks_.mp_free = std::numeric_limits<double>::quiet_NaN();
+        marks_.note = "irreversible: no stick-free points";
+      }
     } else {
       marks_.missing = "not available: " + ses_.margins_error();
     }
@@ -843,17 +849,19 @@ void App::tab_analysis() {
         ImGui::TableSetColumnIndex(2);
         ImGui::Text("%.4f", p.model);
       };
+      const bool rev = ses_.scenario().airplane.circuit.reversible;
       r("neutral point, fixed", m->np_fixed);
-      r("neutral point, free", m->np_free);
-      r("apparent free (hinge consts)", m->np_apparent);
+      if (rev) r("neutral point, free", m->np_free);
+      if (rev) r("apparent free (hinge consts)", m->np_apparent);
       r("maneuver point, fixed", m->mp_fixed);
-      r("maneuver point, free", m->mp_free);
+      if (rev) r("maneuver point, free", m->mp_free);
       ImGui::EndTable();
     }
     if (ImGui::BeginTable("##mg", 2, ImGuiTableFlags_SizingStretchProp)) {
       row("CG", fmt("%.4f", m->cg));
       row("static margin, fixed", fmt("%+.4f", m->margin_fixed));
-      row("static margin, free", fmt("%+.4f", m->margin_free));
+      if (ses_.scenario().airplane.circuit.reversible) row("static margin, free", fmt("%+.4f", m->margin_free));
+      else row("stick-free case", "none (irreversible circuit)");
       row("stick force per g", fmt("%.1f N/g", m->force_per_g));
       row("elevator per g", fmt("%.2f deg/g", to_deg(m->elevator_per_g)));
       row("force gradient at trim", fmt("%+.3f N/(m/s)", m->force_gradient));
@@ -990,7 +998,16 @@ void App::modes_panel(const ImVec2& pos, const ImVec2& size) {
   ImGui::PushFont(f_.small);
   // while the slider is dragged the neutral points are those of the last position let go (they
   // hardly move with the CG; the margins take many trims and follow when the slider is let go)
-  if (const fp::Margins* m = ses_.margins()) {
+  const bool reversible = s.airplane.circuit.reversible;
+  if (const fp::Margins* m = ses_.margins(); m && !reversible) {
+    if (cg > m->np_fixed.model)
+      colored_wrapped(kWarnRed, fmt("CG %.3f is aft of the stick-fixed neutral point ", cg) +
+                                    fmt("%.3f: statically unstable.", m->np_fixed.model));
+    else
+      colored_wrapped(kOkGreen, fmt("Static margin at CG %.3f: ", cg) + fmt("%+.3f (model); irreversible circuit, ",
+                                                                               m->np_fixed.model - cg) +
+                                    "no stick-free case.");
+  } else if (const fp::Margins* m = ses_.margins()) {
     if (cg > m->np_fixed.model)
       colored_wrapped(kWarnRed, fmt("CG %.3f is aft of the stick-FIXED neutral point ", cg) +
                                     fmt("%.3f: unstable even with the stick held.", m->np_fixed.model));
@@ -1146,7 +1163,8 @@ void App::plots_panel(const ImVec2& pos, const ImVec2& size) {
     dl->AddLine(ImVec2(q.x, y), ImVec2(q.x + 10, y), kFree, 2.2f);
     dl->AddLine(ImVec2(q.x + 15, y), ImVec2(q.x + 26, y), kFree, 2.2f);
     ImGui::SetCursorScreenPos(ImVec2(q.x + 32, q.y));
-    ImGui::TextUnformatted("free (hands off after let go)");
+    ImGui::TextUnformatted(ses_.has_free() || !ses_.loaded() ? "free (hands off after let go)"
+                                                              : "free: none (irreversible circuit)");
     if (!time_x_.automatic) {
       ImGui::SameLine(0, 18);
       if (ImGui::SmallButton("follow  [F]")) {

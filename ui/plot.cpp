@@ -419,7 +419,7 @@ void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const 
     if (i1 <= i0) continue;
     if (s.line) {
       pts.clear();
-      const int columns = std::max(8, static_cast<int>(W / 4.0f));  // a column every 4 px
+      const int columns = std::max(8, static_cast<int>(W / 3.0f));  // a column every 3 px
       if (s.sorted_x && i1 - i0 > static_cast<std::size_t>(2 * columns) && s.x_factor > 0.0) {
         // a column whose samples span less than a pixel is drawn with one point
         const double y_tol = std::abs((Y.hi - Y.lo) / static_cast<double>(H) / s.y_factor);

@@ -572,6 +572,7 @@ void SideView::draw(sf::RenderTarget& target, const sf::FloatRect& area, const f
                         {marks.np_apparent, "Napp", kWarn},
                         {marks.mp_fixed, "Mfix", kHeld.surface},
                         {marks.mp_free, "Mfree", kFree.surface}};
+      ms.erase(std::remove_if(ms.begin(), ms.end(), [](const M& m) { return !std::isfinite(m.at); }), ms.end());
       std::sort(ms.begin(), ms.end(), [](const M& a, const M& b) { return a.at < b.at; });
       // labels in one row under the bar, spread so that none overlaps, each joined to its mark
       std::vector<float> lw(ms.size()), lx(ms.size());
@@ -593,6 +594,7 @@ void SideView::draw(sf::RenderTarget& target, const sf::FloatRect& area, const f
         thick_line(va, {V2(x, by + 12), V2(cx, by + 19)}, 1.0f, with_alpha(m.col, 150));
         text(m.label, lx[i], by + 19, 10, m.col);
       }
+      if (!marks.note.empty()) text(marks.note, area.left + 10.0f, by + 22.0f, 10, kMuted);
     } else {
       text("neutral points: " + (marks.missing.empty() ? std::string("not available in this build") : marks.missing),
            X(0.0), by + 14, 11, kWarn);

@@ -35,8 +35,9 @@ struct MacMarks {
   double cg = 0.25;
   double envelope_forward = 0.15, envelope_aft = 0.35;
   bool have_points = false;          // neutral and maneuver points available
-  double np_fixed = 0, np_free = 0, np_apparent = 0, mp_fixed = 0, mp_free = 0;
+  double np_fixed = 0, np_free = 0, np_apparent = 0, mp_fixed = 0, mp_free = 0;  // NaN: not marked
   std::string missing;               // why they are not available
+  std::string note;                  // a remark shown with the marks (e.g. no stick-free case)
 };
 
 class SideView {
