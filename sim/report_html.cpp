@@ -144,29 +144,7 @@ double np_at(const ReportData& d, double cg, bool free) {
   return free ? d.margins.np_free.model : d.margins.np_fixed.model;
 }
 
-struct Band5 {
-  double min = nan_, p5 = nan_, p50 = nan_, p95 = nan_, max = nan_;
-  long n = 0;
-};
-Band5 band_of(std::vector<double> v) {
-  Band5 b;
-  v.erase(std::remove_if(v.begin(), v.end(), [](double x) { return !std::isfinite(x); }), v.end());
-  b.n = static_cast<long>(v.size());
-  if (v.empty()) return b;
-  std::sort(v.begin(), v.end());
-  auto pc = [&](double p) {  // linear interpolation between order statistics (as sweep.json)
-    const double x = p * static_cast<double>(v.size() - 1);
-    const auto i = static_cast<std::size_t>(std::floor(x));
-    const std::size_t j = std::min(i + 1, v.size() - 1);
-    return v[i] + (x - static_cast<double>(i)) * (v[j] - v[i]);
-  };
-  b.min = v.front();
-  b.max = v.back();
-  b.p5 = pc(0.05);
-  b.p50 = pc(0.5);
-  b.p95 = pc(0.95);
-  return b;
-}
+using Band5 = Band;  // percentiles as in sweep.json (sim/sweep.hpp band_of)
 
 const SampleResponse* worst_response(const UncertaintyResult& u) {
   const SampleResponse* w = nullptr;
@@ -884,7 +862,10 @@ std::vector<DataFile> data_files(const ReportData& d) {
     c += ",np_free,max_real_free [1/s],departed,departure_time [s],peak_dn [-],peak_dalpha [deg]\n";
     for (const auto& r : u.responses) {
       c += std::to_string(r.index);
-      for (double v : r.inputs) c += "," + csv_num(v);
+      for (double v : r.inputs) {
+        c += ',';
+        c += csv_num(v);
+      }
       c += "," + csv_num(r.np_free) + "," + csv_num(r.max_real_free) + "," + (r.departed ? "1" : "0") + "," +
            csv_num(r.departure_time) + "," + csv_num(r.peak_dn) + "," + csv_num(units::to_deg(r.peak_dalpha)) + "\n";
     }
@@ -894,7 +875,10 @@ std::vector<DataFile> data_files(const ReportData& d) {
     e += "\n";
     for (std::size_t k = 0; k < u.t.size(); ++k) {
       e += csv_num(u.t[k]);
-      for (const auto& a : u.alpha) e += "," + (k < a.size() ? csv_num(units::to_deg(a[k])) : std::string());
+      for (const auto& a : u.alpha) {
+        e += ',';
+        if (k < a.size()) e += csv_num(units::to_deg(a[k]));
+      }
       e += "\n";
     }
     f.push_back({"data/uncertainty_alpha.csv", "section 7: each sample's hands-off angle of attack (every " +

@@ -405,12 +405,10 @@ SweepResult run_sweep(const SweepSpec& spec, int jobs, bool progress) {
 
 namespace {
 
-struct Band {
-  double min = nan_, p5 = nan_, p50 = nan_, p95 = nan_, max = nan_;
-  long n = 0;
-};
+}  // namespace
+
 Band band_of(std::vector<double> v) {
-  Band b;
+  Band b{nan_, nan_, nan_, nan_, nan_, 0};
   v.erase(std::remove_if(v.begin(), v.end(), [](double x) { return !std::isfinite(x); }), v.end());
   b.n = static_cast<long>(v.size());
   if (v.empty()) return b;
@@ -428,6 +426,9 @@ Band band_of(std::vector<double> v) {
   b.p95 = pc(0.95);
   return b;
 }
+
+namespace {
+
 json band_json(const Band& b) {
   return json{{"n", b.n}, {"min", num(b.min)}, {"p5", num(b.p5)}, {"p50", num(b.p50)}, {"p95", num(b.p95)}, {"max", num(b.max)}};
 }

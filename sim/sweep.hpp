@@ -106,6 +106,14 @@ std::string sweep_csv(const SweepResult& r);
 std::string sweep_table(const SweepResult& r);
 SweepResult sweep_from_json(const nlohmann::json& j);  // throws std::runtime_error
 
+// Min, 5th, 50th and 95th percentile and max of the finite values (linear interpolation between
+// order statistics); used for the uncertainty bands of sweeps and of the report.
+struct Band {
+  double min, p5, p50, p95, max;  // NaN when there is no finite value
+  long n = 0;                     // number of finite values
+};
+Band band_of(std::vector<double> v);
+
 // Evaluate one point (exposed for tests).
 PointResult evaluate_point(const Scenario& base, const std::vector<std::string>& keys,
                            const std::vector<double>& values, double run_seconds, long index);
