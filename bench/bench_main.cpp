@@ -7,11 +7,11 @@
 #include <benchmark/benchmark.h>
 
 #include "model/dynamics.hpp"
-#include "sim/gusts.hpp"
-#include "sim/outputs.hpp"
-#include "sim/run.hpp"
-#include "sim/scenario.hpp"
-#include "sim/sweep.hpp"
+#include "analysis/gust_studies.hpp"
+#include "output/outputs.hpp"
+#include "run/run.hpp"
+#include "scenario/scenario.hpp"
+#include "analysis/sweep.hpp"
 
 #ifndef FP_SOURCE_DIR
 #define FP_SOURCE_DIR "."

@@ -1,7 +1,7 @@
 // airplane.hpp — the constant description of an airplane and of the flight condition.
 //
 // Plain structs, SI units and radians, one comment a field: meaning [unit] (allowed range).
-// The allowed ranges are enforced by the scenario loader (sim/keys.cpp), which is the one
+// The allowed ranges are enforced by the scenario loader (scenario/keys.cpp), which is the one
 // table from which validation and the README's key reference are made; the comments here
 // say what the physics means by each field.
 //

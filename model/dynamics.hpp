@@ -29,7 +29,7 @@
 namespace fp {
 
 // Thrown by make_plant for an airplane that is not physically possible (e.g. an airframe
-// inertia that comes out negative). sim/ turns it into a user error naming the keys.
+// inertia that comes out negative). scenario/ turns it into a user error naming the keys.
 struct ModelError {
   const char* keys;      // the scenario keys involved
   const char* message;   // what is wrong

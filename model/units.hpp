@@ -1,6 +1,6 @@
 // units.hpp — the one place where the trade's units meet SI.
 //
-// Everything inside model/ and sim/ is SI with angles in radians. Degrees, knots, feet,
+// Everything below the file, table and screen edges is SI with angles in radians. Degrees, knots, feet,
 // pounds and the like appear only at the edges (scenario files, tables, plots, the window),
 // and every conversion goes through the factors below. The unit table is also what the
 // scenario loader accepts in strings such as "110 kt" or "12 in".

@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # update_readme_keys.sh — regenerate the scenario key reference in README.md from the key table
-# (sim/keys.cpp, printed by `floatpitch keys`), between the keys:begin / keys:end markers.
+# (scenario/keys.cpp, printed by `floatpitch keys`), between the keys:begin / keys:end markers.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 exe=${1:-build/floatpitch}

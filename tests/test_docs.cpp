@@ -1,12 +1,12 @@
 // test_docs.cpp — the README's scenario key reference is the one the key table produces
-// (sim/keys.cpp is the single source of keys, units, meanings and ranges).
+// (scenario/keys.cpp is the single source of keys, units, meanings and ranges).
 #include <doctest/doctest.h>
 
 #include <fstream>
 #include <sstream>
 #include <string>
 
-#include "sim/scenario.hpp"
+#include "scenario/scenario.hpp"
 
 TEST_CASE("README key reference is in step with the key table") {
   std::ifstream f(std::string(FP_SOURCE_DIR) + "/README.md");

@@ -19,12 +19,12 @@
 #include "model/trim.hpp"
 #include "model/turbulence.hpp"
 #include "model/units.hpp"
-#include "sim/gusts.hpp"
-#include "sim/outputs.hpp"
-#include "sim/response.hpp"
-#include "sim/run.hpp"
-#include "sim/scenario.hpp"
-#include "sim/signal.hpp"
+#include "analysis/gust_studies.hpp"
+#include "output/outputs.hpp"
+#include "analysis/response.hpp"
+#include "run/run.hpp"
+#include "scenario/scenario.hpp"
+#include "analysis/signal.hpp"
 #include "support.hpp"
 
 using namespace fp;

@@ -9,8 +9,8 @@
 #include "model/static.hpp"
 #include "model/trim.hpp"
 #include "model/units.hpp"
-#include "sim/run.hpp"
-#include "sim/signal.hpp"
+#include "run/run.hpp"
+#include "analysis/signal.hpp"
 #include "support.hpp"
 
 using namespace fp;

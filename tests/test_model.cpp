@@ -10,7 +10,7 @@
 #include "model/linear.hpp"
 #include "model/trim.hpp"
 #include "model/units.hpp"
-#include "sim/run.hpp"
+#include "run/run.hpp"
 #include "support.hpp"
 
 using namespace fp;

@@ -19,9 +19,9 @@
 #include <nlohmann/json.hpp>
 
 #include "model/units.hpp"
-#include "sim/report.hpp"
-#include "sim/sha256.hpp"
-#include "sim/svg.hpp"
+#include "report/report.hpp"
+#include "util/sha256.hpp"
+#include "report/svg.hpp"
 
 #include <sys/wait.h>  // after the project's headers: <signal.h> defines si_value as a macro
 

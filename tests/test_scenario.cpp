@@ -15,7 +15,7 @@
 #include <vector>
 
 #include "model/units.hpp"
-#include "sim/scenario.hpp"
+#include "scenario/scenario.hpp"
 
 using namespace fp;
 using doctest::Approx;

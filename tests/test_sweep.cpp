@@ -7,8 +7,9 @@
 #include <nlohmann/json.hpp>
 
 #include "model/static.hpp"
-#include "sim/scenario.hpp"
-#include "sim/sweep.hpp"
+#include "scenario/scenario.hpp"
+#include "analysis/sweep.hpp"
+#include "output/sweep_text.hpp"
 
 using namespace fp;
 

@@ -16,7 +16,7 @@
 #include <imgui_stdlib.h>
 
 #include "model/units.hpp"
-#include "sim/atomic_file.hpp"
+#include "output/atomic_file.hpp"
 
 namespace fpui {
 

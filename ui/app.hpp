@@ -17,7 +17,7 @@
 #include <SFML/Graphics/Rect.hpp>
 #include <SFML/Graphics/RenderTarget.hpp>
 
-#include "sim/key_info.hpp"
+#include "scenario/key_info.hpp"
 #include "ui/plot.hpp"
 #include "ui/script.hpp"
 #include "ui/session.hpp"

@@ -4,13 +4,13 @@
 #include <algorithm>
 #include <cmath>
 
-#include "sim/outputs.hpp"
+#include "output/outputs.hpp"
 
 namespace fpui {
 
 namespace {
 
-// The messages of the command line (sim/commands.cpp) for the same failures.
+// The messages of the command line (cli/commands.cpp) for the same failures.
 std::string trim_message(const fp::Scenario& s, const fp::TrimError& e) { return s.path + ": " + e.message; }
 
 Action action(double t, ActionKind kind, double value = 0.0, double duration = 0.0) {

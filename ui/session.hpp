@@ -16,9 +16,9 @@
 #include <vector>
 
 #include "model/trim.hpp"
-#include "sim/cg_locus.hpp"
-#include "sim/run.hpp"
-#include "sim/scenario.hpp"
+#include "analysis/cg_locus.hpp"
+#include "run/run.hpp"
+#include "scenario/scenario.hpp"
 #include "ui/script.hpp"
 
 namespace fpui {
@@ -47,7 +47,7 @@ class Session {
   const fp::Trim& trim() const { return trim_; }
   const fp::Plant& plant() const { return *plant_; }
   const fp::ModesResult& modes() const { return modes_; }
-  // Neutral and maneuver points, margins (sim/analysis.hpp); null when they could not be
+  // Neutral and maneuver points, margins (analysis/margins_modes.hpp); null when they could not be
   // computed, with the reason in margins_error().
   const fp::Margins* margins() const { return margins_ ? &*margins_ : nullptr; }
   const std::string& margins_error() const { return margins_error_; }

@@ -11,7 +11,7 @@
 #include <string>
 #include <vector>
 
-#include "sim/scenario.hpp"
+#include "scenario/scenario.hpp"
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
   std::string text(reinterpret_cast<const char*>(data), size);

@@ -32,8 +32,8 @@ fi
 # Dictionary: table names, short key names and choice strings from the key table.
 dict="$build/scenario.dict"
 {
-  grep -o '\.name = "[a-z_.]*"' "$root/sim/keys.cpp" | sed 's/.*"\(.*\)"/\1/' | tr '.' '\n'
-  grep -o '\.choices = {[^}]*}' "$root/sim/keys.cpp" | grep -o '"[a-z_]*"' | tr -d '"'
+  grep -o '\.name = "[a-z_.]*"' "$root/scenario/keys.cpp" | sed 's/.*"\(.*\)"/\1/' | tr '.' '\n'
+  grep -o '\.choices = {[^}]*}' "$root/scenario/keys.cpp" | grep -o '"[a-z_]*"' | tr -d '"'
   printf '%s\n' include event gust auto deg kt ft lb lbf in % true false '[[' ']]'
 } | sort -u | sed 's/.*/"&"/' > "$dict"
 

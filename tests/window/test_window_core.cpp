@@ -8,7 +8,7 @@
 #include <string>
 
 #include "model/units.hpp"
-#include "sim/scenario.hpp"
+#include "scenario/scenario.hpp"
 #include "ui/plot.hpp"
 #include "ui/script.hpp"
 #include "ui/session.hpp"

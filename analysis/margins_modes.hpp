@@ -1,0 +1,60 @@
+// analysis.hpp — the static and linear analyses of a scenario, assembled once for every
+// consumer (the command line, the report, the window): neutral and maneuver points both ways,
+// margins, stick forces, the free-return band, CG limits; modes held and free.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include <nlohmann/json_fwd.hpp>
+
+#include "model/linear.hpp"
+#include "model/static.hpp"
+#include "scenario/scenario.hpp"
+
+namespace fp {
+
+struct Pair {
+  double closed_form = 0;
+  double model = 0;
+};
+
+struct MarginsOptions {
+  double min_static_margin = 0.05;  // [-]
+  double min_force_per_g = 13.3;    // [N/g] (3 lbf/g)
+  int curve_points = 41;            // stick-force curve points
+};
+
+struct Margins {
+  double cg = 0;                    // scenario CG [-]
+  double trim_speed = 0;            // [m/s]
+  double trim_tab = 0;              // [rad] tab of the hands-off trim at the scenario condition
+  ClosedForm cf;                    // every closed-form value
+  Pair np_fixed, np_free, np_apparent, mp_fixed, mp_free;
+  double margin_fixed = 0;          // model: np_fixed - cg
+  double margin_free = 0;           // model: np_free - cg
+  double margin_apparent = 0;       // model: np_apparent - cg
+  double elevator_per_g = 0;        // model [rad/g]
+  double force_per_g = 0;           // model, everything included [N/g]
+  double force_per_g_aero = 0;      // model, without bobweight, downspring and elevator weight [N/g]
+  double force_gradient = 0;        // model dF/dV at trim, tab fixed [N/(m/s)]
+  double free_return_low = 0;       // [m/s] lowest speed of the free-return band (NaN: none)
+  double free_return_high = 0;      // [m/s]
+  double reversal_speed = 0;        // [m/s] a second zero of F_s(V) in the range (NaN: none)
+  double speed_lo = 0, speed_hi = 0;// range of the stick-force curve [m/s]
+  std::vector<ForcePoint> curve;    // stick force against speed, tab fixed
+  CgLimits limits;
+  double envelope_forward = 0, envelope_aft = 0;
+};
+
+// Throws TrimError (scenario condition cannot be trimmed) or ScenarioError.
+Margins compute_margins(const Scenario& s, const MarginsOptions& o = {});
+
+struct ModesResult {
+  LinearModel held_lm, free_lm;
+  std::vector<Mode> held, free;
+  bool has_free = false;            // false for an irreversible circuit
+};
+ModesResult compute_modes(const Scenario& s);
+
+}  // namespace fp

@@ -1,0 +1,120 @@
+// sweep.hpp — parameter sweeps, random sampling for uncertainty, and the hands-off
+// divergence boundary.
+//
+// A sweep varies one or two scenario keys over a grid (KEY=FROM:TO:STEP), or samples keys from
+// distributions (normal, uniform) with a seeded generator. Each point is independent: trim,
+// static margins (closed form and model), modes held and free, and optionally a time-domain
+// run held and free. Points run in parallel on a pool of threads; results are stored by point
+// index, so the numbers and row order do not depend on the number of threads. A point that
+// cannot be set or trimmed is a row with its reason.
+//
+// Sharding: --shard K/N keeps the points whose index i satisfies i % N == K; `merge` joins the
+// shards' sweep.json files and recomputes everything derived from the whole set (the boundary
+// and the bands) exactly as a single run would.
+//
+// Boundary (when the CG is varied): for the stick held and free, the CG at which the airplane
+// starts to diverge, three ways: closed form (h_n held; the apparent free point h_app free),
+// eigenvalue (largest real eigenvalue crossing zero, bracketed on the grid then bisected),
+// time domain (growth rate of the slow motion from the response, by the matrix pencil, crossing
+// zero, bracketed then bisected).
+#pragma once
+
+#include <cstdint>
+#include <string>
+#include <vector>
+
+#include <nlohmann/json_fwd.hpp>
+
+#include "scenario/scenario.hpp"
+
+namespace fp {
+
+struct VarySpec {
+  std::string key;     // as given (alias allowed)
+  double from = 0, to = 0, step = 0;  // SI
+};
+
+enum class Distribution { normal, uniform };
+struct SampleSpec {
+  std::string key;
+  Distribution dist = Distribution::normal;
+  double a = 0, b = 0;  // normal: mean, sd; uniform: low, high (SI)
+};
+
+struct SweepSpec {
+  std::string scenario;              // path
+  std::vector<std::string> set;      // --set overrides
+  std::vector<VarySpec> vary;        // grid (at most two)
+  std::vector<SampleSpec> sample;    // random sampling
+  int samples = 0;
+  std::uint64_t seed = 1;
+  double run_seconds = 0;            // 0: no time-domain run per point
+  double boundary_run_seconds = 120; // runs for the time-domain boundary (at least this long)
+  int shard_k = 0, shard_n = 1;
+  bool find_boundary = true;         // refine the divergence boundary when the CG is varied
+};
+
+// Parse "KEY=FROM:TO:STEP" (values may carry units: "cg=0.30:0.42:0.005",
+// "condition.airspeed=90 kt:130 kt:10 kt"). Throws ScenarioError (origin "--vary").
+VarySpec parse_vary(const Scenario& s, const std::string& text);
+// Parse "KEY=normal(MEAN,SD)" or "KEY=uniform(LO,HI)". Throws ScenarioError (origin "--sample").
+SampleSpec parse_sample(const Scenario& s, const std::string& text);
+
+struct PointResult {
+  long index = 0;
+  std::vector<double> inputs;        // SI values of the varied/sampled keys
+  bool ok = false;
+  std::string reason;                // when not ok
+  double trim_alpha_deg = 0, trim_elevator_deg = 0, trim_tab_deg = 0;  // [deg] (kept in the file's unit)
+  double np_fixed_cf = 0, np_free_cf = 0, np_apparent_cf = 0, np_fixed = 0, np_free = 0;
+  double cg = 0;
+  double force_gradient = 0;         // [N/(m/s)] model, tab fixed
+  double max_real_held = 0, max_real_free = 0;       // largest real eigenvalue [1/s]
+  double sp_damping_held = 0, sp_damping_free = 0;   // NaN when no short-period pair
+  double sp_frequency_held = 0, sp_frequency_free = 0;
+  bool ran = false;
+  bool diverged_held = false, diverged_free = false;
+  double divergence_time_held = 0, divergence_time_free = 0;  // NaN when none
+  double peak_dn_held = 0, peak_dn_free = 0;          // max |n - 1|
+  double peak_dalpha_held_deg = 0, peak_dalpha_free_deg = 0;  // max |alpha - alpha_trim| [deg]
+  double growth_held = 0, growth_free = 0;            // matrix-pencil rate [1/s]
+};
+
+struct Boundary {
+  double closed_form = 0, eigenvalue = 0, time_domain = 0;  // fractions of MAC (NaN: not found)
+  double closed_form_aerodynamic = 0;                       // free: h'_n without the speed term
+};
+
+struct SweepResult {
+  SweepSpec spec;
+  std::vector<std::string> input_keys;
+  long total_points = 0;             // before sharding
+  std::vector<PointResult> points;   // sorted by index
+  bool has_boundary = false;
+  Boundary held, free;
+};
+
+// Run the sweep; progress on standard error (a bar on a terminal, plain lines otherwise).
+// Throws ScenarioError for a bad spec.
+SweepResult run_sweep(const SweepSpec& spec, int jobs, bool progress);
+
+// Recompute the boundary from a complete set of points (used by run_sweep and merge).
+void compute_boundary(SweepResult& r, int jobs);
+
+
+// Min, 5th, 50th and 95th percentile and max of the finite values (linear interpolation between
+// order statistics); used for the uncertainty bands of sweeps and of the report.
+struct Band {
+  double min, p5, p50, p95, max;  // NaN when there is no finite value
+  long n = 0;                     // number of finite values
+};
+Band band_of(std::vector<double> v);
+
+// Evaluate one point (exposed for tests).
+PointResult evaluate_point(const Scenario& base, const std::vector<std::string>& keys,
+                           const std::vector<double>& values, double run_seconds, long index);
+
+// Growth rate of the slow motion after a disturbance, held or free, at a scenario (time domain).
+double time_domain_growth(const Scenario& s, bool free, double seconds);
+
+}  // namespace fp

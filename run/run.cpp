@@ -1,0 +1,392 @@
+// run.cpp — the one integration path (see run.hpp).
+#include "run/run.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include <boost/numeric/odeint.hpp>
+
+#include "model/units.hpp"
+#include "run/gust_field.hpp"
+
+namespace fp {
+
+namespace odeint = boost::numeric::odeint;
+
+namespace {
+
+const std::array<ChannelInfo, ch_count> kChannels{{
+    {"time", "s", 1.0, "time"},
+    {"airspeed", "m/s", 1.0, "airspeed"},
+    {"alpha", "deg", 1.0 / units::deg, "angle of attack"},
+    {"q", "deg/s", 1.0 / units::deg, "pitch rate"},
+    {"theta", "deg", 1.0 / units::deg, "pitch attitude"},
+    {"altitude", "m", 1.0, "altitude"},
+    {"load_factor", "-", 1.0, "load factor"},
+    {"elevator", "deg", 1.0 / units::deg, "elevator (TE down +)"},
+    {"elevator_rate", "deg/s", 1.0 / units::deg, "elevator rate"},
+    {"tab", "deg", 1.0 / units::deg, "tab (TE down +)"},
+    {"stick_force", "N", 1.0, "stick force (pull +)"},
+    {"hinge_moment", "N m", 1.0, "aerodynamic hinge moment (TE down +)"},
+    {"alpha_tail", "deg", 1.0 / units::deg, "tail angle of attack"},
+    {"gust_w_wing", "m/s", 1.0, "vertical gust at wing (up +)"},
+    {"gust_w_tail", "m/s", 1.0, "vertical gust at tail (up +)"},
+    {"gust_u_wing", "m/s", 1.0, "horizontal gust at wing"},
+    {"gust_u_tail", "m/s", 1.0, "horizontal gust at tail"},
+    {"hold_force", "N", 1.0, "force to hold the stick where it is (pull +)"},
+}};
+
+std::string fmt(const char* f, double a, double b = 0) {
+  char buf[200];
+  std::snprintf(buf, sizeof buf, f, a, b);
+  return buf;
+}
+
+}  // namespace
+
+const ChannelInfo& channel_info(std::size_t ch) { return kChannels.at(ch); }
+
+// The stick force that holds the elevator still at its present angle and zero rate: the
+// model's own rigid-hold evaluation (dynamics.cpp solves the hinge equation for the pilot's
+// hinge moment when the stick is held rigidly), at the same state and time.
+double hold_force(const Plant& p, const GustField& gust, double t, const State& x, const Controls& c) {
+  Controls h = c;
+  h.stick = Stick::held;
+  h.hold_de = x[sx::de];
+  h.pilot_force = 0.0;
+  State xs = x;
+  xs[sx::de_dot] = 0.0;
+  State d{};
+  Eval e;
+  if (p.ap.circuit.held_stiffness == 0.0) {
+    derivatives(p, gust, xs, h, t, d, &e);
+  } else {
+    Plant rigid = p;  // a compliant hold would read zero force at its own angle: hold rigidly
+    rigid.ap.circuit.held_stiffness = 0.0;
+    derivatives(rigid, gust, xs, h, t, d, &e);
+  }
+  return e.stick_force;
+}
+
+std::array<double, ch_count> output_row(const Plant& p, const GustField& gust, double t,
+                                        const State& x, const Controls& c) {
+  State d{};
+  Eval e;
+  derivatives(p, gust, x, c, t, d, &e);
+  std::array<double, ch_count> r{};
+  r[ch_time] = t;
+  r[ch_airspeed] = e.V;
+  r[ch_alpha] = e.alpha;
+  r[ch_q] = x[sx::q];
+  r[ch_theta] = x[sx::theta];
+  r[ch_altitude] = x[sx::h];
+  r[ch_load_factor] = e.load_factor;
+  r[ch_elevator] = x[sx::de];
+  r[ch_elevator_rate] = d[sx::de];
+  r[ch_tab] = e.tab;
+  r[ch_stick_force] = e.stick_force;
+  r[ch_hinge_moment] = e.H_aero;
+  r[ch_alpha_tail] = e.alpha_t;
+  r[ch_gust_w_wing] = e.gust_wing.w;
+  r[ch_gust_w_tail] = e.gust_tail.w;
+  r[ch_gust_u_wing] = e.gust_wing.u;
+  r[ch_gust_u_tail] = e.gust_tail.u;
+  r[ch_hold_force] = c.stick == Stick::held ? e.stick_force : hold_force(p, gust, t, x, c);
+  return r;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Stepper: dense-output Dormand-Prince with a counting system functor.
+
+struct Simulation::Stepper {
+  using base = odeint::runge_kutta_dopri5<State>;
+  using dense_t = odeint::result_of::make_dense_output<base>::type;
+  dense_t dense;
+  bool initialised = false;
+  Stepper(double atol, double rtol) : dense(odeint::make_dense_output(atol, rtol, base())) {}
+};
+
+Simulation::Simulation(std::shared_ptr<const Plant> plant, GustField gust, const Trim& trim,
+                       const RunSettings& settings, RunCase rc, std::vector<Event> events)
+    : plant_(std::move(plant)), gust_(std::move(gust)), settings_(settings), case_(rc) {
+  x_ = trim.x;
+  ctl_ = trim.controls;
+  V_trim_ = trim.airspeed;
+  // the free case starts held and lets go at its time (at once when it is 0)
+  if (rc.stick == Stick::free) {
+    if (rc.let_go_time <= 0.0) {
+      ctl_.stick = Stick::free;
+      ctl_.pilot_force = 0.0;
+    } else {
+      pending_.push_back(Event{rc.let_go_time, EventKind::let_go, 0, 0, 0});
+    }
+  }
+  for (const auto& e : events) pending_.push_back(e);
+  std::stable_sort(pending_.begin(), pending_.end(),
+                   [](const Event& a, const Event& b) { return a.time < b.time; });
+  stepper_ = std::make_shared<Stepper>(settings_.abs_tol, settings_.rel_tol);
+  // apply events at t = 0 before the first sample
+  while (!pending_.empty() && pending_.front().time <= 0.0) {
+    const Event e = pending_.front();
+    pending_.erase(pending_.begin());
+    apply(e);
+  }
+  record(0.0, x_);
+  out_index_ = 1;
+  next_out_ = settings_.output_step;
+}
+
+void Simulation::restart() { stepper_->initialised = false; }
+
+void Simulation::record(double t, const State& x) { trace_.push(output_row(*plant_, gust_, t, x, ctl_)); }
+
+bool Simulation::check_departure(double /*t*/, const State& x, std::string& why) const {
+  const double V = std::hypot(x[sx::u], x[sx::w]);
+  const double alpha = std::atan2(x[sx::w], x[sx::u]);
+  if (std::abs(alpha) > settings_.alpha_limit) {
+    why = fmt("angle of attack beyond +-%.1f deg (%.1f deg)", units::to_deg(settings_.alpha_limit),
+              units::to_deg(alpha));
+    return true;
+  }
+  if (std::abs(x[sx::q]) > settings_.q_limit) {
+    why = fmt("pitch rate beyond +-%.1f deg/s (%.1f deg/s)", units::to_deg(settings_.q_limit),
+              units::to_deg(x[sx::q]));
+    return true;
+  }
+  if (V < settings_.min_airspeed_ratio * V_trim_) {
+    why = fmt("airspeed below %.0f %% of trim (%.1f m/s)", 100.0 * settings_.min_airspeed_ratio, V);
+    return true;
+  }
+  return false;
+}
+
+void Simulation::apply(const Event& e) {
+  const bool is_free_case = case_.stick == Stick::free;
+  switch (e.kind) {
+    case EventKind::let_go:
+      if (is_free_case) {
+        ctl_.stick = Stick::free;
+        ctl_.pilot_force = 0.0;
+      }
+      break;
+    case EventKind::take_hold:
+      if (is_free_case && ctl_.stick == Stick::free) {
+        ctl_.stick = Stick::held;
+        ctl_.hold_de = x_[sx::de];
+        if (plant_->ap.circuit.held_stiffness == 0.0) x_[sx::de_dot] = 0.0;
+      }
+      break;
+    case EventKind::tab:
+      ctl_.tab = e.value;
+      break;
+    case EventKind::pulse:
+      if (is_free_case && ctl_.stick == Stick::free) {
+        ctl_.pilot_force += e.value;
+        if (e.duration > 0.0) {
+          Event end = e;
+          end.time = e.time + e.duration;
+          end.value = -e.value;
+          end.duration = 0.0;
+          end.line = -1;  // marks an end event: always applied while free
+          pending_.push_back(end);
+          std::stable_sort(pending_.begin(), pending_.end(),
+                           [](const Event& a, const Event& b) { return a.time < b.time; });
+        }
+      } else if (e.line == -1 && ctl_.stick == Stick::free) {
+        ctl_.pilot_force += e.value;
+      }
+      break;
+    case EventKind::elevator:
+      if (ctl_.stick == Stick::held) {
+        ctl_.hold_de += e.value;
+        if (plant_->ap.circuit.held_stiffness == 0.0) x_[sx::de] = ctl_.hold_de;
+        if (e.duration > 0.0) {
+          Event end = e;
+          end.time = e.time + e.duration;
+          end.value = -e.value;
+          end.duration = 0.0;
+          pending_.push_back(end);
+          std::stable_sort(pending_.begin(), pending_.end(),
+                           [](const Event& a, const Event& b) { return a.time < b.time; });
+        }
+      }
+      break;
+  }
+  restart();
+}
+
+void Simulation::apply_now(const Event& e) {
+  Event ev = e;
+  ev.time = t_;
+  // the stepper may be ahead of t_: bring the state to t_ exactly before changing anything
+  if (stepper_->initialised && stepper_->dense.current_time() > t_) stepper_->dense.calc_state(t_, x_);
+  apply(ev);
+}
+
+void Simulation::add_gust_now(DiscreteGust g) {
+  if (stepper_->initialised && stepper_->dense.current_time() > t_) stepper_->dense.calc_state(t_, x_);
+  const Plant& p = *plant_;
+  const double X_wing = x_[sx::x] + p.rW_x * std::cos(x_[sx::theta]) + p.rW_z * std::sin(x_[sx::theta]);
+  g.start += X_wing + gust_.front_speed * t_;
+  gust_.gusts.push_back(g);
+  restart();
+}
+
+bool Simulation::advance_to(double target) {
+  if (done_) return false;
+  target = std::min(target, settings_.duration);
+  auto& st = *stepper_;
+  auto sys = [this](const State& x, State& dxdt, double t) {
+    ++stats_.derivative_calls;
+    derivatives(*plant_, gust_, x, ctl_, t, dxdt, nullptr);
+  };
+  const double tiny = 1e-12;
+  // Sample the output grid inside the stepper's last step, up to `upto`, and check for a
+  // departure there and at the step's end (once). Returns false on a departure. The stepper
+  // may already be ahead of t_ from an earlier call (a live loop advancing in slices): the grid
+  // points of that step up to the new stop are sampled here, so slicing changes nothing.
+  auto sample = [&](double upto, double stop) {
+    const double t_before = st.dense.previous_time();
+    while (true) {
+      const double tk = static_cast<double>(out_index_) * settings_.output_step;
+      if (tk > upto + tiny || tk > settings_.duration + tiny) break;
+      State xk;
+      st.dense.calc_state(tk, xk);
+      std::string why;
+      if (check_departure(tk, xk, why)) {
+        // bisect the crossing time inside this step on the dense output
+        double lo = std::max(t_before, tk - settings_.output_step), hi = tk;
+        State xm;
+        for (int i = 0; i < 50; ++i) {
+          const double mid = 0.5 * (lo + hi);
+          st.dense.calc_state(mid, xm);
+          std::string w2;
+          if (check_departure(mid, xm, w2)) hi = mid; else lo = mid;
+        }
+        dep_ = Departure{true, hi, why};
+        record(tk, xk);
+        t_ = tk;
+        x_ = xk;
+        done_ = true;
+        return false;
+      }
+      record(tk, xk);
+      ++out_index_;
+    }
+    // a departure between grid points (a short excursion) counts too
+    const double t_after = st.dense.current_time();
+    if (t_after <= stop + tiny && t_after > end_checked_) {
+      end_checked_ = t_after;
+      std::string why;
+      const State& xs = st.dense.current_state();
+      if (check_departure(t_after, xs, why)) {
+        dep_ = Departure{true, t_after, why};
+        t_ = t_after;
+        x_ = xs;
+        done_ = true;
+        return false;
+      }
+    }
+    return true;
+  };
+  while (t_ < target - tiny) {
+    // the next stop: the target or the next event, whichever comes first
+    double stop = target;
+    const bool event_next = !pending_.empty() && pending_.front().time <= target + tiny;
+    if (event_next) stop = std::max(pending_.front().time, t_);
+    if (!st.initialised) {
+      const double dt0 = std::min(settings_.output_step, 1e-3);
+      st.dense.initialize(x_, t_, dt0);
+      st.initialised = true;
+      end_checked_ = t_;
+    } else if (st.dense.current_time() > t_ + tiny) {
+      // the stepper is ahead of t_: first the grid points of its last step up to `stop`
+      if (!sample(std::min(st.dense.current_time(), stop), stop)) return false;
+    }
+    // step until the stepper has passed `stop`
+    while (st.dense.current_time() < stop - tiny) {
+      const double t_before = st.dense.current_time();
+      try {
+        st.dense.do_step(sys);
+      } catch (const odeint::step_adjustment_error& ex) {
+        throw NumericalFailure{t_before, st.dense.current_state(),
+                               std::string("step size could not be adjusted: ") + ex.what()};
+      }
+      const double t_after = st.dense.current_time();
+      const double h = t_after - t_before;
+      const State& xs = st.dense.current_state();
+      for (double v : xs)
+        if (!std::isfinite(v))
+          throw NumericalFailure{t_after, xs, "the state became NaN or infinite"};
+      if (h < 1e-10)
+        throw NumericalFailure{t_after, xs,
+                               fmt("the step size collapsed to %.3g s (a very stiff circuit: raise "
+                                   "the tolerances or soften the stops)", h)};
+      ++stats_.steps;
+      stats_.min_step = stats_.steps == 1 ? h : std::min(stats_.min_step, h);
+      stats_.max_step = std::max(stats_.max_step, h);
+      if (!sample(std::min(t_after, stop), stop)) return false;
+    }
+    st.dense.calc_state(stop, x_);
+    t_ = stop;
+    if (event_next && std::abs(pending_.front().time - stop) <= tiny + 1e-15 * stop) {
+      while (!pending_.empty() && pending_.front().time <= t_ + tiny) {
+        const Event e = pending_.front();
+        pending_.erase(pending_.begin());
+        apply(e);
+      }
+    }
+  }
+  if (t_ >= settings_.duration - tiny) done_ = true;
+  return !done_;
+}
+
+// ---------------------------------------------------------------------------------------------
+
+std::shared_ptr<const Plant> scenario_plant(const Scenario& s) {
+  try {
+    return std::make_shared<const Plant>(make_plant(s.airplane));
+  } catch (const ModelError& e) {
+    throw ScenarioError{s.path, 0, 0, e.keys, e.message};
+  }
+}
+
+Trim scenario_trim(const Plant& p, const Scenario& s) {
+  if (s.trim.tab_auto && p.ap.circuit.reversible) return trim_free(p, s.condition);
+  return trim_held(p, s.condition, s.trim.tab_auto ? 0.0 : s.trim.tab);
+}
+
+GustField scenario_gust_field(const Scenario& s) {
+  GustField g;
+  g.gusts = s.gusts;
+  g.front_speed = s.gust_front_speed;
+  g.turbulence = scenario_turbulence(s);
+  return g;
+}
+
+RunOutcome run_scenario(const Scenario& s, ControlsChoice which) {
+  if (!s.airplane.circuit.reversible && which != ControlsChoice::held)
+    throw ScenarioError{s.path, 0, 0, "circuit.reversible",
+                        "this circuit is irreversible (powered): the elevator cannot float, so there is "
+                        "no stick-free case; run with the controls held"};
+  auto plant = scenario_plant(s);
+  RunOutcome out;
+  out.trim = scenario_trim(*plant, s);
+  const GustField gust = scenario_gust_field(s);
+  auto run_case = [&](Stick stick) {
+    auto r = std::make_unique<CaseResult>();
+    r->rc = RunCase{stick, s.run.let_go_time};
+    Simulation sim(plant, gust, out.trim, s.run, r->rc, s.events);
+    sim.run_to_end();
+    r->trace = sim.trace();
+    r->departure = sim.departure();
+    r->stats = sim.stats();
+    return r;
+  };
+  if (which != ControlsChoice::free) out.held = run_case(Stick::held);
+  if (which != ControlsChoice::held) out.free = run_case(Stick::free);
+  return out;
+}
+
+}  // namespace fp

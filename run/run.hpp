@@ -1,0 +1,162 @@
+// run.hpp — time-domain runs: one integration path for every use.
+//
+// Boost.Odeint's Dormand-Prince 5(4) with error control and dense output steps the model;
+// the output is sampled on a fixed grid from the dense output, so the grid does not depend on
+// the solver's own steps. Timeline events split the integration at their times (the stepper
+// is re-initialised there), never inside a step. A departure of the airplane (angle of attack,
+// pitch rate or airspeed out of bounds) is a *result*: the run stops cleanly and records when.
+// A NaN or a collapse of the step size is a *numerical failure*: NumericalFailure is thrown
+// with the time and the state. The two are never confused.
+//
+// `Simulation` can be advanced in slices (the window's live loop) or run to the end (the
+// command line); both paths are the same code.
+#pragma once
+
+#include <array>
+#include <memory>
+#include <string>
+#include <vector>
+
+#include "model/dynamics.hpp"
+#include "model/trim.hpp"
+#include "scenario/scenario.hpp"
+
+namespace fp {
+
+// Output channels, SI inside; `display` converts for CSV, tables and plots.
+enum Channel : std::size_t {
+  ch_time, ch_airspeed, ch_alpha, ch_q, ch_theta, ch_altitude, ch_load_factor, ch_elevator,
+  ch_elevator_rate, ch_tab, ch_stick_force, ch_hinge_moment, ch_alpha_tail, ch_gust_w_wing,
+  ch_gust_w_tail, ch_gust_u_wing, ch_gust_u_tail,
+  ch_hold_force,  // stick force that would hold the elevator still where it is (free: what the
+                  // pilot feels on taking hold again; held: the holding force itself)
+  ch_count
+};
+
+struct ChannelInfo {
+  const char* name;      // CSV header name
+  const char* unit;      // display unit
+  double display;        // SI value * display = displayed value
+  const char* label;     // for plots and tables
+};
+const ChannelInfo& channel_info(std::size_t ch);
+
+// Time histories on the output grid, one vector a channel, SI.
+struct Trace {
+  std::array<std::vector<double>, ch_count> ch;
+  std::size_t size() const { return ch[ch_time].size(); }
+  void push(const std::array<double, ch_count>& row) {
+    for (std::size_t i = 0; i < ch_count; ++i) ch[i].push_back(row[i]);
+  }
+};
+
+struct SolverStats {
+  long steps = 0;             // accepted steps
+  long derivative_calls = 0;  // calls of the derivative function
+  double min_step = 0;        // smallest accepted step [s]
+  double max_step = 0;        // largest accepted step [s]
+};
+
+struct NumericalFailure {
+  double time;           // [s]
+  State state;
+  std::string message;
+};
+
+struct Departure {
+  bool departed = false;
+  double time = 0;       // [s]
+  std::string reason;    // which bound, e.g. "angle of attack above 34.4 deg"
+};
+
+// The case being run: which stick, the trim it starts from.
+struct RunCase {
+  Stick stick = Stick::held;    // the case's name: held or free (free lets go at let_go_time)
+  double let_go_time = 0.0;     // [s]
+};
+
+class Simulation {
+ public:
+  // Start at the trimmed state `trim` with the scenario's settings. The gust field is the
+  // scenario's; `events` are applied at their times (those that concern the case).
+  Simulation(std::shared_ptr<const Plant> plant, GustField gust, const Trim& trim,
+             const RunSettings& settings, RunCase rc, std::vector<Event> events);
+
+  // Integrate up to time t (clamped to the run's duration), sampling the grid. Returns false
+  // once the run is over (end reached or departure). Throws NumericalFailure.
+  bool advance_to(double t);
+  void run_to_end() { advance_to(settings_.duration); }
+
+  // Live changes (the window): applied at the current time, splitting the integration.
+  void apply_now(const Event& e);
+  void add_gust_now(DiscreteGust g);  // g.start is taken relative to the wing's position now
+  void set_duration(double d) { settings_.duration = d; }
+
+  double time() const { return t_; }
+  const State& state() const { return x_; }
+  const Controls& controls() const { return ctl_; }
+  const Trace& trace() const { return trace_; }
+  const Departure& departure() const { return dep_; }
+  const SolverStats& stats() const { return stats_; }
+  const Plant& plant() const { return *plant_; }
+  const GustField& gust_field() const { return gust_; }
+  bool finished() const { return done_; }
+
+ private:
+  struct Stepper;
+  void restart();
+  void record(double t, const State& x);
+  void apply(const Event& e);
+  bool check_departure(double t, const State& x, std::string& why) const;
+
+  std::shared_ptr<const Plant> plant_;
+  GustField gust_;
+  RunSettings settings_;
+  RunCase case_;
+  double V_trim_ = 0;
+  std::vector<Event> pending_;   // future events (including pulse ends), sorted
+  State x_{};
+  Controls ctl_{};
+  double t_ = 0;
+  double next_out_ = 0;          // next grid time
+  long out_index_ = 0;
+  Trace trace_;
+  Departure dep_;
+  SolverStats stats_;
+  bool done_ = false;
+  double end_checked_ = -1.0;    // last step end checked for a departure [s]
+  std::shared_ptr<Stepper> stepper_;
+};
+
+// The stick force that would hold the elevator still at its present angle (pull +) [N]: with
+// the stick free, the force the pilot feels on taking hold again.
+double hold_force(const Plant& p, const GustField& gust, double t, const State& x, const Controls& c);
+
+// One row of outputs at (t, x) with the given controls (used for the grid and for tables).
+std::array<double, ch_count> output_row(const Plant& p, const GustField& gust, double t,
+                                        const State& x, const Controls& c);
+
+// The results of `floatpitch run`: trim, then held and/or free runs.
+struct CaseResult {
+  RunCase rc;
+  Trace trace;
+  Departure departure;
+  SolverStats stats;
+};
+
+struct RunOutcome {
+  Trim trim;                        // the common starting trim (tab per the scenario)
+  std::unique_ptr<CaseResult> held; // null when not run
+  std::unique_ptr<CaseResult> free;
+};
+
+// Trim per the scenario's [trim] settings (throws TrimError).
+Trim scenario_trim(const Plant& p, const Scenario& s);
+// The gust field of a scenario (discrete gusts; turbulence where configured).
+GustField scenario_gust_field(const Scenario& s);
+// Run the scenario's cases (throws TrimError, NumericalFailure, ScenarioError).
+RunOutcome run_scenario(const Scenario& s, ControlsChoice which);
+// The plant of a scenario (throws ScenarioError naming the keys on a ModelError).
+std::shared_ptr<const Plant> scenario_plant(const Scenario& s);
+
+}  // namespace fp

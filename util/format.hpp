@@ -1,0 +1,11 @@
+// format.hpp — number formatting shared by messages, tables and reports.
+#pragma once
+
+#include <string>
+
+namespace fp {
+
+// "12.3" style: v with `decimals` digits after the point (printf %.*f).
+std::string fixed(double v, int decimals);
+
+}  // namespace fp
