@@ -12,6 +12,7 @@
 #include "model/static.hpp"
 #include "model/units.hpp"
 #include "output/outputs.hpp"
+#include "util/caution.hpp"
 #include "output/response_text.hpp"
 
 // ---------------------------------------------------------------------------------------------
@@ -304,7 +305,7 @@ SeedsReport seeds_report(const Scenario& s, const SeedsResult& r) {
     }
   // spreads
   json j{{"tool", "floatpitch"}, {"scenario", s.path}, {"name", s.name}, {"seeds", r.runs.size()},
-         {"first_seed", s.turbulence.seed}, {"wall_time_s", r.seconds}, {"turbulence", turbulence_json(s)}};
+         {"first_seed", s.turbulence.seed}, {"wall_time_s", r.seconds}, {"turbulence", turbulence_json(s)}, {"caution", kCaution}};
   Spread sp[2][32];
   long departures[2] = {0, 0};
   bool has[2] = {false, false};

@@ -10,6 +10,7 @@
 
 #include "model/units.hpp"
 #include "output/outputs.hpp"
+#include "util/caution.hpp"
 
 namespace fp {
 
@@ -130,7 +131,7 @@ json sweep_json(const SweepResult& r) {
   json pts = json::array();
   for (const auto& p : r.points) pts.push_back(point_json(p, r.input_keys));
   json j{{"tool", "floatpitch"}, {"spec", spec}, {"input_keys", r.input_keys}, {"total_points", r.total_points},
-         {"points", pts}};
+         {"points", pts}, {"caution", kCaution}};
   if (r.has_boundary) {
     auto b = [](const Boundary& x, bool free) {
       json o{{"closed_form", num(x.closed_form)}, {"eigenvalue", num(x.eigenvalue)}, {"time_domain", num(x.time_domain)}};

@@ -22,6 +22,7 @@
 #include "analysis/response.hpp"
 #include "util/sha256.hpp"
 #include "report/svg.hpp"
+#include "util/caution.hpp"
 
 namespace fp {
 
@@ -30,12 +31,6 @@ using nlohmann::json;
 namespace {
 
 constexpr double nan_ = std::numeric_limits<double>::quiet_NaN();
-constexpr const char* kCaution =
-    "Engineering analysis aid, not approved data. Results are only as good as the aerodynamic and "
-    "hinge-moment data put in, which carry large uncertainty. No flutter and no structural flexibility "
-    "are modelled. Flight-test and compliance findings belong to qualified, authorized people under the "
-    "applicable airworthiness authority's rules.";
-
 using svg::number;
 std::string esc(const std::string& s) { return svg::escape(s); }
 std::string pct(double v, int dec = 1) { return number(100.0 * v, dec); }
@@ -799,7 +794,10 @@ std::string csv_num(double v) {
 
 std::vector<DataFile> data_files(const ReportData& d) {
   std::vector<DataFile> f;
-  const auto dump = [](const json& j) { return j.dump(2) + "\n"; };
+  const auto dump = [](json j) {  // every JSON file carries the caution
+    if (j.is_object() && !j.contains("caution")) j["caution"] = kCaution;
+    return j.dump(2) + "\n";
+  };
   f.push_back({"data/scenario_resolved.toml", "the scenario as analysed: every key after includes and overrides",
                d.scenario_toml});
   {

@@ -18,6 +18,7 @@
 #include <SFML/Graphics/RenderTarget.hpp>
 
 #include "scenario/key_info.hpp"
+#include "util/caution.hpp"
 #include "ui/plot.hpp"
 #include "ui/script.hpp"
 #include "ui/session.hpp"
@@ -38,10 +39,7 @@ struct Options {
   bool fixed_step() const { return frames >= 0 || !script.empty(); }
 };
 
-inline constexpr const char* kCautions =
-    "Engineering analysis aid, not approved data: results are only as good as the aerodynamic and "
-    "hinge-moment data; no flutter or structural flexibility modelled; compliance findings belong to "
-    "qualified, authorized engineers under the applicable airworthiness rules.";
+inline constexpr const char* kCautions = fp::kCaution;
 
 class App {
  public:

@@ -1,0 +1,72 @@
+// cmd_forces.cpp — `floatpitch forces` (see commands.hpp).
+#include "cli/common.hpp"
+
+#include <cmath>
+#include <fstream>
+#include <thread>
+#include <unistd.h>
+#include <cstdio>
+#include <iostream>
+#include <sstream>
+#include <stdexcept>
+
+#include <nlohmann/json.hpp>
+
+#include "model/linear.hpp"
+#include "model/trim.hpp"
+#include "model/units.hpp"
+#include "analysis/margins_modes.hpp"
+#include "output/atomic_file.hpp"
+#include "analysis/gust_studies.hpp"
+#include "output/analysis_text.hpp"
+#include "output/gust_text.hpp"
+#include "output/outputs.hpp"
+#include "output/response_text.hpp"
+#include "output/sweep_text.hpp"
+#include "report/report.hpp"
+#include "run/run.hpp"
+#include "analysis/sweep.hpp"
+#include "scenario/scenario.hpp"
+
+namespace fp::cmd {
+
+using nlohmann::json;
+
+int forces(const ForcesOpts& o) {
+  return guarded(o.common.scenario, [&] {
+    const Scenario s = load_scenario(o.common.scenario, o.common.set);
+    if (!s.airplane.circuit.reversible)
+      throw ScenarioError{s.path, 0, 0, "circuit.reversible", "the circuit is irreversible: the pilot feels no hinge moment"};
+    const Margins m = compute_margins(s);
+    std::ostringstream a, b;
+    a << "airspeed [m/s],airspeed [kt],stick_force [N],elevator [deg],alpha [deg]\n";
+    for (const auto& f : m.curve)
+      a << f.airspeed << "," << units::to_kt(f.airspeed) << "," << f.stick_force << "," << units::to_deg(f.elevator)
+        << "," << units::to_deg(f.alpha) << "\n";
+    const auto plant = scenario_plant(s);
+    b << "load_factor [-],stick_force [N],elevator [deg]\n";
+    for (int i = 0; i <= 12; ++i) {
+      TrimRequest r;
+      r.condition = s.condition;
+      r.tab = m.trim_tab;
+      r.load_factor = 1.0 + 0.25 * i;
+      r.check_limits = false;
+      const Trim t = fp::trim(*plant, r);
+      b << r.load_factor << "," << t.stick_force << "," << units::to_deg(t.de) << "\n";
+    }
+    if (o.out.empty()) {
+      std::cout << "# stick force against airspeed, tab fixed at " << units::to_deg(m.trim_tab) << " deg\n"
+                << a.str() << "\n# stick force against load factor (steady pull-up at the trim speed)\n" << b.str();
+      return kOk;
+    }
+    std::string per_g = o.out;
+    const auto dot = per_g.rfind(".csv");
+    per_g = (dot != std::string::npos ? per_g.substr(0, dot) : per_g) + "_per_g.csv";
+    write_file_atomic(o.out, a.str());
+    write_file_atomic(per_g, b.str());
+    std::cout << "wrote " << o.out << " and " << per_g << "\n";
+    return kOk;
+  }, o.out.empty() ? CautionTo::err : CautionTo::out);
+}
+
+}  // namespace fp::cmd

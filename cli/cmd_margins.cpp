@@ -1,0 +1,57 @@
+// cmd_margins.cpp — `floatpitch margins` (see commands.hpp).
+#include "cli/common.hpp"
+
+#include <cmath>
+#include <fstream>
+#include <thread>
+#include <unistd.h>
+#include <cstdio>
+#include <iostream>
+#include <sstream>
+#include <stdexcept>
+
+#include <nlohmann/json.hpp>
+
+#include "model/linear.hpp"
+#include "model/trim.hpp"
+#include "model/units.hpp"
+#include "analysis/margins_modes.hpp"
+#include "output/atomic_file.hpp"
+#include "analysis/gust_studies.hpp"
+#include "output/analysis_text.hpp"
+#include "output/gust_text.hpp"
+#include "output/outputs.hpp"
+#include "output/response_text.hpp"
+#include "output/sweep_text.hpp"
+#include "report/report.hpp"
+#include "run/run.hpp"
+#include "analysis/sweep.hpp"
+#include "scenario/scenario.hpp"
+
+namespace fp::cmd {
+
+using nlohmann::json;
+
+int margins(const MarginsOpts& o) {
+  return guarded(o.common.scenario, [&] {
+    const Scenario s = load_scenario(o.common.scenario, o.common.set);
+    if (!s.airplane.circuit.reversible)
+      throw ScenarioError{s.path, 0, 0, "circuit.reversible",
+                          "the circuit is irreversible: there are no stick-free margins (use `modes` for the held case)"};
+    MarginsOptions mo;
+    mo.min_static_margin = o.min_margin;
+    mo.min_force_per_g = o.min_force_per_g;
+    const Margins m = compute_margins(s, mo);
+    if (o.common.json) {
+      json j = margins_json(m);
+      j["caution"] = kCaution;
+      j["scenario"] = s.path;
+      std::cout << j.dump(2) << "\n";
+    } else {
+      std::cout << s.path << ": " << s.name << "\n" << margins_table(m);
+    }
+    return kOk;
+  }, o.common.json ? CautionTo::none : CautionTo::out);
+}
+
+}  // namespace fp::cmd

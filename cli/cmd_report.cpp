@@ -1,0 +1,76 @@
+// cmd_report.cpp — `floatpitch report` (see commands.hpp).
+#include "cli/common.hpp"
+
+#include <cmath>
+#include <fstream>
+#include <thread>
+#include <unistd.h>
+#include <cstdio>
+#include <iostream>
+#include <sstream>
+#include <stdexcept>
+
+#include <nlohmann/json.hpp>
+
+#include "model/linear.hpp"
+#include "model/trim.hpp"
+#include "model/units.hpp"
+#include "analysis/margins_modes.hpp"
+#include "output/atomic_file.hpp"
+#include "analysis/gust_studies.hpp"
+#include "output/analysis_text.hpp"
+#include "output/gust_text.hpp"
+#include "output/outputs.hpp"
+#include "output/response_text.hpp"
+#include "output/sweep_text.hpp"
+#include "report/report.hpp"
+#include "run/run.hpp"
+#include "analysis/sweep.hpp"
+#include "scenario/scenario.hpp"
+
+namespace fp::cmd {
+
+using nlohmann::json;
+
+int report(const ReportOpts& o) {
+  return guarded(o.common.scenario, [&] {
+    ReportOptions r;
+    r.scenario = o.common.scenario;
+    r.set = o.common.set;
+    r.out = o.out;
+    r.cg_range = o.cg_range;
+    r.gusts = o.gusts;
+    r.hinge_band = o.hinge_band / 100.0;
+    r.sample = o.sample;
+    r.samples = o.samples;
+    r.seed = o.seed;
+    r.min_margin = o.min_margin;
+    r.min_force_per_g = o.min_force_per_g;
+    r.pdf = o.pdf;
+    r.jobs = default_jobs(o.jobs);
+    const ReportData d = make_report(r);
+    OutputSet out(o.out);
+    const auto files = report_files(d);
+    for (const auto& [name, content] : files) out.add(name, content);
+    out.commit();
+    std::cout << "wrote " << o.out << "/report.html and " << files.size() - 1 << " data files in " << o.out << "/data/\n";
+    if (o.pdf) {
+      const std::string chromium = find_chromium();
+      if (chromium.empty()) {
+        std::cout << "--pdf: no PDF written: headless Chromium is not installed (looked for chromium and "
+                     "chromium-browser on the PATH, and $FLOATPITCH_CHROMIUM). Open report.html in a browser and "
+                     "print it, or install Chromium (Debian: apt-get install chromium).\n";
+      } else {
+        const std::string err = print_pdf(chromium, o.out + "/report.html", o.out + "/report.pdf");
+        if (!err.empty()) {
+          std::cerr << "error: --pdf: " << err << "; report.html and data/ are written, report.pdf is not\n";
+          return kBadInput;
+        }
+        std::cout << "wrote " << o.out << "/report.pdf\n";
+      }
+    }
+    return kOk;
+  });
+}
+
+}  // namespace fp::cmd
