@@ -19,7 +19,6 @@ using nlohmann::json;
 namespace {
 
 constexpr double nan_ = std::numeric_limits<double>::quiet_NaN();
-json num(double v) { return std::isfinite(v) ? json(v) : json(nullptr); }
 
 const std::array<StatChannelInfo, st_count> kStat{{
     {"load_factor", "-", 1.0, {0.25, 0.5, 1.0}},

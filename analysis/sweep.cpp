@@ -30,8 +30,6 @@ using nlohmann::json;
 namespace {
 
 constexpr double nan_ = std::numeric_limits<double>::quiet_NaN();
-json num(double v) { return std::isfinite(v) ? json(v) : json(nullptr); }
-double val(const json& j) { return j.is_number() ? j.get<double>() : nan_; }
 
 std::string trim_ws(const std::string& s) {
   const auto b = s.find_first_not_of(" \t");

@@ -20,7 +20,7 @@
 namespace {
 
 const fp::Scenario& demo() {
-  static const fp::Scenario s = fp::load_scenario(FP_SOURCE_DIR "/scenarios/wren_gust.toml",
+  static const fp::Scenario s = fp::load_scenario(FP_SOURCE_DIR "/scenarios/orvane_gust.toml",
                                                   {"run.duration=60"});
   return s;
 }
@@ -71,7 +71,7 @@ BENCHMARK(derivative);
 // the three-way divergence boundary (eigenvalue and time-domain bisections) on top.
 void cg_sweep_100(benchmark::State& st) {
   fp::SweepSpec spec;
-  spec.scenario = FP_SOURCE_DIR "/scenarios/wren_gust.toml";
+  spec.scenario = FP_SOURCE_DIR "/scenarios/orvane_gust.toml";
   const fp::Scenario base = fp::load_scenario(spec.scenario);
   spec.vary.push_back(fp::parse_vary(base, "cg=0.20:0.3980:0.002"));
   spec.run_seconds = 30.0;
@@ -87,9 +87,9 @@ BENCHMARK(cg_sweep_100)->Args({1, 0})->Args({2, 0})->Args({2, 1})->Unit(benchmar
 
 // Turbulence: 20 seeds x 300 s of moderate Dryden turbulence, held and free (40 runs), with the
 // statistics of each (goal: under 2 s on 2 cores). Arg: jobs. The scenario's tolerances
-// (rel 1e-5, abs 1e-6) and 50 Hz output are those of scenarios/wren_turbulence.toml.
+// (rel 1e-5, abs 1e-6) and 50 Hz output are those of scenarios/orvane_turbulence.toml.
 void turbulence_20_seeds(benchmark::State& st) {
-  const fp::Scenario s = fp::load_scenario(FP_SOURCE_DIR "/scenarios/wren_turbulence.toml");
+  const fp::Scenario s = fp::load_scenario(FP_SOURCE_DIR "/scenarios/orvane_turbulence.toml");
   const int jobs = static_cast<int>(st.range(0));
   for (auto _ : st) {
     const fp::SeedsResult r = fp::run_seeds(s, fp::ControlsChoice::both, 20, jobs, false);

@@ -81,7 +81,7 @@ struct Elevator {
 // The circuit between stick and elevator, all given where the pilot feels it (at the stick),
 // and referred to the hinge through the gearing inside the model.
 struct Circuit {
-  bool reversible = true;       // false: powered / irreversible circuit, no stick-free case
+  bool reversible = true;       // false: powered / irreversible circuit: the elevator cannot float, held case only
   double gearing = 1.2;         // elevator angle per stick travel G > 0 [rad/m] (0.1..20);
                                 // stick aft (pull) moves the elevator trailing edge up
   double stick_mass = 1.0;      // equivalent mass of stick and circuit moving with it, at the stick [kg] (0..50)

@@ -286,7 +286,7 @@ ReportData make_report(const ReportOptions& o) {
   if (!s.airplane.circuit.reversible)
     throw ScenarioError{s.path, 0, 0, "circuit.reversible",
                         "the report compares the stick held and free, and this circuit is irreversible (powered): "
-                        "the elevator cannot float, so there is no stick-free case. Use `floatpitch modes` and "
+                        "the elevator cannot float: held case only. Use `floatpitch modes` and "
                         "`floatpitch run --controls held` for the held airplane"};
   if (!(o.hinge_band >= 0.0 && o.hinge_band < 1.0)) throw option_error("--hinge-band", "expects 0 <= band < 100 (%)");
   if (o.samples < 2 || o.samples > 5000) throw option_error("--samples", "expects 2..5000 samples");

@@ -368,8 +368,8 @@ GustField scenario_gust_field(const Scenario& s) {
 RunOutcome run_scenario(const Scenario& s, ControlsChoice which) {
   if (!s.airplane.circuit.reversible && which != ControlsChoice::held)
     throw ScenarioError{s.path, 0, 0, "circuit.reversible",
-                        "this circuit is irreversible (powered): the elevator cannot float, so there is "
-                        "no stick-free case; run with the controls held"};
+                        "this circuit is irreversible (powered): the elevator cannot float: held case only; "
+                        "run with the controls held"};
   auto plant = scenario_plant(s);
   RunOutcome out;
   out.trim = scenario_trim(*plant, s);

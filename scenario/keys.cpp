@@ -140,7 +140,7 @@ std::vector<Key> make_table_keys() {
 
       // [circuit]
       {.name = "circuit.reversible", .kind = Kind::boolean,
-       .meaning = "true for a mechanical circuit; false for a powered (irreversible) one, which has no stick-free case",
+       .meaning = "true for a mechanical circuit; false for a powered (irreversible) one, whose elevator cannot float: held case only",
        .flag = FP_FLAG(airplane.circuit.reversible)},
       {.name = "circuit.gearing", .dim = Dim::gearing,
        .meaning = "elevator angle per stick travel; a pull moves the trailing edge up", .min = 0.1, .max = 20,

@@ -1006,8 +1006,8 @@ void validate(const Scenario& s) {
   if (!ci.reversible && s.run.controls != ControlsChoice::held)
     fail(where_any({"run.controls", "circuit.reversible"}), "run.controls",
          std::string("= \"") + (s.run.controls == ControlsChoice::free ? "free" : "both") +
-             "\" asks for a stick-free case, but an irreversible circuit (circuit.reversible = false) has no "
-             "stick-free case: use \"held\"");
+             "\" asks for a stick-free case, but in an irreversible circuit (circuit.reversible = false) "
+             "the elevator cannot float: held case only; use \"held\"");
   if (s.run.let_go_time > s.run.duration)
     fail(where_any({"run.let_go_time", "run.duration"}), "run.let_go_time",
          "= " + keys::fmt(s.run.let_go_time) + " s is after the end of the run (run.duration = " +

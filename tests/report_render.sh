@@ -20,7 +20,7 @@ rm -rf "$work"
 mkdir -p "$work"
 cd "$src"
 
-"$exe" report scenarios/wren_aft_cg.toml --out "$work/report" --pdf --jobs 2
+"$exe" report scenarios/orvane_aft_cg.toml --out "$work/report" --pdf --jobs 2
 test -s "$work/report/report.html"
 head -c 5 "$work/report/report.pdf" | grep -q '%PDF-' || { echo "FAIL: report.pdf is not a PDF"; exit 1; }
 pdf_bytes=$(stat -c %s "$work/report/report.pdf")

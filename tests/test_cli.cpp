@@ -46,7 +46,7 @@ fs::path temp_dir(const std::string& name) {
 // A case file that includes the demo trainer, with `extra` appended.
 std::string case_file(const fs::path& dir, const std::string& extra) {
   const fs::path f = dir / "case.toml";
-  std::ofstream(f) << "include = \"" << kSrc << "/scenarios/aircraft/wren_t2.toml\"\n"
+  std::ofstream(f) << "include = \"" << kSrc << "/scenarios/aircraft/orvane_t2.toml\"\n"
                    << "[condition]\naltitude = \"3000 ft\"\nairspeed = \"105 kt\"\n"
                    << extra;
   return f.string();
@@ -72,7 +72,7 @@ TEST_CASE("bad input: a clear message and exit status 2, nothing written") {
       {"untrimmable condition (below the stall speed)", "", "--set condition.airspeed=30kt", "stall", "no trim"},
       {"bad --set value", "", "--set mass.cg=abc", "mass.cg", "--set"},
       {"irreversible circuit asked to float", "[circuit]\nreversible = false\n", "--controls free", "irreversible",
-       "stick-free"},
+       "held case only"},
   };
   for (const auto& b : cases) {
     CAPTURE(b.name);
@@ -92,7 +92,7 @@ TEST_CASE("bad input: a clear message and exit status 2, nothing written") {
     CHECK(r.out.find("/nonexistent/floatpitch/case.toml") != std::string::npos);
   }
   SUBCASE("an unknown option") {
-    const Result r = run("run " + kSrc + "/scenarios/wren_gust.toml --frobnicate");
+    const Result r = run("run " + kSrc + "/scenarios/orvane_gust.toml --frobnicate");
     CHECK(r.status == 2);
     CHECK(r.out.find("frobnicate") != std::string::npos);
   }
@@ -100,7 +100,7 @@ TEST_CASE("bad input: a clear message and exit status 2, nothing written") {
 
 TEST_CASE("floatpitch run writes the documented files and columns") {
   const fs::path d = temp_dir("run");
-  const Result r = run("run " + kSrc + "/scenarios/wren_gust.toml --out " + d.string() + " --quiet");
+  const Result r = run("run " + kSrc + "/scenarios/orvane_gust.toml --out " + d.string() + " --quiet");
   REQUIRE(r.status == 0);
   for (const char* f : {"held.csv", "free.csv", "summary.json"}) CHECK(fs::exists(d / f));
   std::ifstream csv(d / "free.csv");
@@ -123,13 +123,13 @@ TEST_CASE("floatpitch run writes the documented files and columns") {
 TEST_CASE("aft-CG demo: held stays, free diverges") {
   // The demo's CG lies between the stick-free and stick-fixed neutral points (see `margins`).
   const fs::path d = temp_dir("aft");
-  const Result r = run("run " + kSrc + "/scenarios/wren_aft_cg.toml --out " + d.string() + " --quiet");
+  const Result r = run("run " + kSrc + "/scenarios/orvane_aft_cg.toml --out " + d.string() + " --quiet");
   REQUIRE(r.status == 0);
   const auto j = nlohmann::json::parse(std::ifstream(d / "summary.json"));
   CHECK(j["held"]["diverged"] == false);
   CHECK(j["free"]["diverged"] == true);
   CHECK(j["free"]["divergence_time_s"].get<double>() > 1.0);
-  const Result m = run("margins " + kSrc + "/scenarios/wren_aft_cg.toml --json");
+  const Result m = run("margins " + kSrc + "/scenarios/orvane_aft_cg.toml --json");
   REQUIRE(m.status == 0);
   const auto mj = nlohmann::json::parse(m.out);
   CHECK(mj["static_margin_fixed"].get<double>() > 0.0);
@@ -143,7 +143,7 @@ TEST_CASE("aft-CG demo: held stays, free diverges") {
 }
 
 TEST_CASE("modes: held beside free, with the JSON keys documented") {
-  const Result r = run("modes " + kSrc + "/scenarios/wren_gust.toml --json");
+  const Result r = run("modes " + kSrc + "/scenarios/orvane_gust.toml --json");
   REQUIRE(r.status == 0);
   const auto j = nlohmann::json::parse(r.out);
   bool sp_held = false, sp_free = false, elev = false, ph = false;

@@ -31,7 +31,7 @@ namespace {
 
 const std::string kExe = std::string(FP_BINARY_DIR) + "/floatpitch";
 const std::string kSrc = FP_SOURCE_DIR;
-const std::string kAft = kSrc + "/scenarios/wren_aft_cg.toml";
+const std::string kAft = kSrc + "/scenarios/orvane_aft_cg.toml";
 
 struct Out {
   int status = -1;
@@ -343,9 +343,9 @@ TEST_CASE("floatpitch report: bad input is refused with a clear message, nothing
     CHECK(r.text.find(b.expect2) != std::string::npos);
     CHECK_FALSE(fs::exists(out));
   }
-  SUBCASE("an irreversible circuit has no stick-free case to report") {
+  SUBCASE("an irreversible circuit: the elevator cannot float, nothing stick-free to report") {
     const fs::path f = d / "irreversible.toml";
-    std::ofstream(f) << "include = \"" << kSrc << "/scenarios/wren_aft_cg.toml\"\n[circuit]\nreversible = false\n";
+    std::ofstream(f) << "include = \"" << kSrc << "/scenarios/orvane_aft_cg.toml\"\n[circuit]\nreversible = false\n";
     const fs::path out = d / "out2";
     const Out r = report(f.string() + " --out " + out.string());
     CAPTURE(r.text);

@@ -328,7 +328,7 @@ TEST_CASE("every class of bad input gives file, line, key and what is allowed") 
     CHECK(e.key == "run.controls");
     CHECK(e.line == line_of(t, "controls"));
     CHECK(has(e.message, "an irreversible circuit"));
-    CHECK(has(e.message, "no stick-free case"));
+    CHECK(has(e.message, "the elevator cannot float: held case only"));
   }
   SUBCASE("the model's own check, turned into a key error") {
     // Inertia about the hinge must be at least mass_moment^2/mass (parallel-axis theorem).

@@ -15,7 +15,7 @@ using namespace fp;
 
 namespace {
 const std::string kLinear = std::string(FP_SOURCE_DIR) + "/tests/data/linear_airplane.toml";
-const std::string kDemo = std::string(FP_SOURCE_DIR) + "/scenarios/wren_gust.toml";
+const std::string kDemo = std::string(FP_SOURCE_DIR) + "/scenarios/orvane_gust.toml";
 
 SweepSpec cg_sweep(const std::string& file, double from, double to, double step) {
   SweepSpec s;

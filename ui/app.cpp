@@ -371,7 +371,7 @@ void App::frame(float wall_dt) {
       marks_.mp_fixed = m->mp_fixed.model;
       marks_.mp_free = m->mp_free.model;
       if (!ses_.scenario().airplane.circuit.reversible) {
-        // an irreversible circuit has no stick-free case: no stick-free points either
+        // an irreversible circuit: the elevator cannot float (held case only): no stick-free points either
         marks_.np_free = marks_.np_apparent = marks_.mp_free = std::numeric_limits<double>::quiet_NaN();
         marks_.note = "irreversible: no stick-free points";
       }
@@ -716,7 +716,7 @@ void App::tab_edit() {
       edit_error_ = err;
       if (err.empty()) edit_ok_ = std::string("circuit.reversible = ") + (rev ? "true" : "false");
     }
-    tooltip("circuit.reversible: false for a powered (irreversible) circuit: there is then no stick-free case.");
+    tooltip("circuit.reversible: false for a powered (irreversible) circuit: the elevator cannot float: held case only.");
   }
   std::string table;
   bool open = false;
@@ -903,7 +903,7 @@ void App::tab_analysis() {
   ImGui::Spacing();
   caption(f_, "MODES, STICK FREE");
   if (ses_.modes().has_free) modes_table("##mf", ses_.modes().free);
-  else ImGui::TextDisabled("irreversible circuit: no stick-free case");
+  else ImGui::TextDisabled("irreversible circuit: the elevator cannot float: held case only");
 }
 
 // =============================================================================================
@@ -1006,7 +1006,7 @@ void App::modes_panel(const ImVec2& pos, const ImVec2& size) {
     else
       colored_wrapped(kOkGreen, fmt("Static margin at CG %.3f: ", cg) + fmt("%+.3f (model); irreversible circuit, ",
                                                                                m->np_fixed.model - cg) +
-                                    "no stick-free case.");
+                                    "the elevator cannot float: held case only.");
   } else if (const fp::Margins* m = ses_.margins()) {
     if (cg > m->np_fixed.model)
       colored_wrapped(kWarnRed, fmt("CG %.3f is aft of the stick-FIXED neutral point ", cg) +

@@ -37,7 +37,7 @@ struct MacMarks {
   bool have_points = false;          // neutral and maneuver points available
   double np_fixed = 0, np_free = 0, np_apparent = 0, mp_fixed = 0, mp_free = 0;  // NaN: not marked
   std::string missing;               // why they are not available
-  std::string note;                  // a remark shown with the marks (e.g. no stick-free case)
+  std::string note;                  // a remark shown with the marks (e.g. "the elevator cannot float: held case only")
 };
 
 class SideView {

@@ -7,7 +7,7 @@ view=$1 src=$2 work=$3
 rm -rf "$work"
 mkdir -p "$work"
 printf 'at 0 let_go\n# fine so far\nat 1 gust 1-cosine 5 furlongs 20 m\n' > "$work/bad.fps"
-DISPLAY= "$view" "$src/scenarios/wren_gust.toml" --frames 5 --script "$work/bad.fps" 2> "$work/err.txt"
+DISPLAY= "$view" "$src/scenarios/orvane_gust.toml" --frames 5 --script "$work/bad.fps" 2> "$work/err.txt"
 status=$?
 cat "$work/err.txt"
 [[ $status -eq 2 ]] || { echo "expected status 2, got $status"; exit 1; }

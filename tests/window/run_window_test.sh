@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # run_window_test.sh — the window under Xvfb with Mesa's software OpenGL: a scripted gust on
-# the Wren demo case, a screenshot at the end, the run's CSVs; then the screenshot is checked
+# the Orvane demo case, a screenshot at the end, the run's CSVs; then the screenshot is checked
 # against the CSVs (check_screenshot.cpp).
 #   run_window_test.sh VIEW CHECKER SOURCE_DIR WORK_DIR
 set -euo pipefail
@@ -14,7 +14,7 @@ at 0 span 8
 at 0.4 gust 1-cosine 8 m/s 25 m
 SCRIPT
 export LIBGL_ALWAYS_SOFTWARE=1
-xvfb-run -a -s "-screen 0 1280x800x24" "$view" "$src/scenarios/wren_gust.toml" --frames 240 \
+xvfb-run -a -s "-screen 0 1280x800x24" "$view" "$src/scenarios/orvane_gust.toml" --frames 240 \
   --script "$work/gust.fps" --screenshot "$work/shot.png" --csv-dir "$work/run" --layout "$work/layout.txt" \
   > "$work/stdout.txt" 2> "$work/stderr.txt" || { echo "floatpitch-view failed:"; cat "$work/stderr.txt"; exit 1; }
 test -s "$work/shot.png" || { echo "no screenshot"; exit 1; }

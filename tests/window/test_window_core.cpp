@@ -17,7 +17,7 @@ using namespace fpui;
 namespace u = fp::units;
 
 namespace {
-const std::string kGustCase = std::string(FP_SOURCE_DIR) + "/scenarios/wren_gust.toml";
+const std::string kGustCase = std::string(FP_SOURCE_DIR) + "/scenarios/orvane_gust.toml";
 
 std::string error_of(const std::string& text) {
   try {

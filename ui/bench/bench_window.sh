@@ -12,7 +12,7 @@ frames=${2:-330}
 view="$build/ui/floatpitch-view"
 work=$(mktemp -d)
 trap 'rm -rf "$work"' EXIT
-xvfb-run -a -s "-screen 0 1280x800x24" "$view" "$here/../../scenarios/wren_gust.toml" --frames "$frames" \
+xvfb-run -a -s "-screen 0 1280x800x24" "$view" "$here/../../scenarios/orvane_gust.toml" --frames "$frames" \
   --script "$here/bench_scene.fps" --frame-log "$work/frames.csv" > "$work/out.txt" 2> "$work/err.txt" ||
   { cat "$work/err.txt"; exit 1; }
 # skip the warm-up frames (the first one simulates the 60 s at once)
