@@ -912,25 +912,33 @@ std::vector<std::pair<std::string, std::string>> report_files(const ReportData& 
 
 namespace {
 
-std::string page(const ReportData& d, const std::vector<DataFile>& files) {
-  const Facts f = facts_of(d);
-  const Margins& m = d.margins;
-  const Scenario& s = d.scenario;
-  const Airplane& a = s.airplane;
-  const double cg = f.cg;
-  const double rho = isa_at(geopotential_altitude(s.condition.altitude)).density;
-  const double Veas = s.condition.airspeed * std::sqrt(rho / isa_at(0.0).density);
-  Page pg;
-  std::string& h = pg.html;
-  int sweep_root_fig = 0;
+// What every section of the page reads: the report's data and the facts drawn from it once.
+struct PageCtx {
+  const ReportData& d;
+  const std::vector<DataFile>& files;
+  Facts f;
+  double rho = 0;    // density at the condition [kg/m^3]
+  double Veas = 0;   // equivalent airspeed of the condition [m/s]
+  int sweep_root_fig = 0;  // figure number of the sweep's root plot (cited by later sections)
+};
 
-  h += "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n";
-  h += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n";
-  h += "<meta name=\"generator\" content=\"floatpitch " + esc(d.version) + "\">\n";
-  h += "<title>" + esc(s.name) + " \u2014 pitch stability, stick held and free</title>\n";
-  h += "<style>" + std::string(kStyle) + "</style>\n</head>\n<body>\n";
+// The names the section bodies use, bound from the context.
+#define FP_PAGE_NAMES(c)                                         \
+  [[maybe_unused]] const ReportData& d = (c).d;                  \
+  [[maybe_unused]] const std::vector<DataFile>& files = (c).files; \
+  [[maybe_unused]] const Facts& f = (c).f;                       \
+  [[maybe_unused]] const Margins& m = d.margins;                 \
+  [[maybe_unused]] const Scenario& s = d.scenario;               \
+  [[maybe_unused]] const Airplane& a = s.airplane;               \
+  [[maybe_unused]] const double cg = (c).f.cg;                   \
+  [[maybe_unused]] const double rho = (c).rho;                   \
+  [[maybe_unused]] const double Veas = (c).Veas;                 \
+  [[maybe_unused]] int& sweep_root_fig = (c).sweep_root_fig;     \
+  std::string& h = pg.html
 
-  // ---- title and first-page summary
+// Section: title and first-page summary.
+void page_summary(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
   h += "<header>\n<p class=\"kicker\">floatpitch \u00b7 pitch stability with the elevator held and free</p>\n";
   h += "<h1>" + esc(s.name) + "</h1>\n";
   h += "<p class=\"sub\">" + esc(s.aircraft_name) + " \u00b7 CG " + pct(cg) + " % MAC \u00b7 " +
@@ -1027,8 +1035,11 @@ std::string page(const ReportData& d, const std::vector<DataFile>& files) {
        "<li><a href=\"#s5\">CG sweep and the divergence boundary</a></li><li><a href=\"#s6\">Gusts</a></li>"
        "<li><a href=\"#s7\">Uncertainty of the hinge moments</a></li><li><a href=\"#s8\">Findings</a></li>"
        "<li><a href=\"#s9\">Criteria, method and cautions</a></li></ol></nav>\n";
+}
 
-  // ---- 1. what was analysed
+// Section: 1. what was analysed.
+void page_what(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
   h += "<h2 id=\"s1\" class=\"page\">1. What was analysed</h2>\n";
   {
     Table t;
@@ -1091,8 +1102,11 @@ std::string page(const ReportData& d, const std::vector<DataFile>& files) {
          "This command, run from the same directory with the same files, regenerates the report and its data:</p>\n";
     h += "<div class=\"cmd\">" + esc(d.command) + "</div>\n";
   }
+}
 
-  // ---- 2. trim
+// Section: 2. trim.
+void page_trim(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
   h += "<h2 id=\"s2\">2. Trim, held and hands-off</h2>\n";
   {
     Table t;
@@ -1117,8 +1131,11 @@ std::string page(const ReportData& d, const std::vector<DataFile>& files) {
                                      : "trim with the tab as set") +
          "; the held run then holds the stick where it is, the free run lets go of it.</p>\n";
   }
+}
 
-  // ---- 3. static
+// Section: 3. static.
+void page_static(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
   h += "<h2 id=\"s3\">3. Static stability</h2>\n";
   {
     h += "<h3>Neutral and maneuver points</h3>\n";
@@ -1223,8 +1240,11 @@ std::string page(const ReportData& d, const std::vector<DataFile>& files) {
            "<code>--min-force-per-g</code>), not published criteria.</p>\n";
     }
   }
+}
 
-  // ---- 4. dynamic
+// Section: 4. dynamic.
+void page_dynamic(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
   h += "<h2 id=\"s4\">4. Dynamic stability</h2>\n";
   {
     h += "<p>Roots of the full model linearised at the trim of section 2 (central-difference Jacobian); modes are named from "
@@ -1256,8 +1276,11 @@ std::string page(const ReportData& d, const std::vector<DataFile>& files) {
          "correspond to \u03b6 = 0.591, 0.344, 0.180, 0.121. 14 CFR 23.181(a) asks that short-period oscillations be "
          "\u201cheavily damped\u201d with the controls free and fixed and gives no number.</p>\n";
   }
+}
 
-  // ---- 5. CG sweep
+// Section: 5. CG sweep.
+void page_cg_sweep(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
   h += "<h2 id=\"s5\">5. CG sweep and the hands-off divergence boundary</h2>\n";
   {
     const SweepResult& r = d.cg_sweep;
@@ -1292,8 +1315,11 @@ std::string page(const ReportData& d, const std::vector<DataFile>& files) {
            "The closed form leaves out the speed and downwash-lag couplings that the other two include.</p>\n";
     }
   }
+}
 
-  // ---- 6. gusts
+// Section: 6. gusts.
+void page_gusts(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
   h += "<h2 id=\"s6\">6. Gusts</h2>\n";
   {
     if (d.default_gust) h += "<p class=\"note\">The scenario has no gust or event: the report uses a small gust of its own (below).</p>\n";
@@ -1340,8 +1366,110 @@ std::string page(const ReportData& d, const std::vector<DataFile>& files) {
       h += "<h3>Turbulence</h3>\n<p>Turbulence statistics: not requested. No case above flies through continuous "
            "turbulence (the scenario has no <code>[turbulence]</code> table, or a chosen gust replaced it).</p>\n";
   }
+}
 
-  // ---- 7. uncertainty
+// Section: 7. uncertainty.
+// Section 7: the corners of the band (each derivative at its ends).
+void page_uncertainty_corners(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
+  const UncertaintyResult& u = d.uncertainty;
+  if (u.has_corners) {
+    Table c;
+    for (const auto& k : u.keys) {
+      const bool pa = k.find(".ch_") != std::string::npos;
+      c.head.push_back(esc(k) + (pa ? " [/deg]" : ""));
+      c.numeric.push_back(true);
+    }
+    for (const char* x : {"neutral point free [% MAC]", "margin at the stated aft limit [% MAC]", "largest real root free [1/s]"}) {
+      c.head.push_back(x);
+      c.numeric.push_back(true);
+    }
+    for (const auto& p : u.corners.points) {
+      std::vector<std::string> row;
+      for (std::size_t k = 0; k < u.keys.size(); ++k)
+        row.push_back(number(u.keys[k].find(".ch_") != std::string::npos ? p.inputs[k] * units::deg : p.inputs[k], 5));
+      if (!p.ok) {
+        row.push_back("\u2013");
+        row.push_back("\u2013");
+        row.push_back(esc(p.reason));
+      } else {
+        row.push_back(pct(p.np_free, 2));
+        row.push_back(plus_pct(p.np_free - m.envelope_aft, 2));
+        row.push_back(plus(p.max_real_free, 4));
+      }
+      c.rows.push_back(row);
+    }
+    h += "<p>The corners of the band, where the extremes of a monotonic effect lie:</p>\n" + table_html(c);
+  }
+}
+
+// Section 7: the band of the free time response.
+void page_uncertainty_time(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
+  const UncertaintyResult& u = d.uncertainty;
+  if (!u.t.empty() && f.g1 && f.g1->outcome->free) {
+    svg::Plot p;
+    p.id = "fig-band-alpha";
+    p.title = "Hands-off angle of attack of every sample";
+    p.x = {"time", "s"};
+    p.y = {"angle of attack", "deg"};
+    bool first = true;
+    for (const auto& al : u.alpha) {
+      if (al.empty()) continue;
+      std::vector<double> x(u.t.begin(), u.t.begin() + static_cast<long>(std::min(al.size(), u.t.size()))), y;
+      for (double v : al) y.push_back(units::to_deg(v));
+      y.resize(x.size());
+      p.series.push_back(line(first ? "each sample, hands off" : "", x, y, svg::Style::faint));
+      first = false;
+    }
+    if (f.g1->outcome->held)
+      p.series.insert(p.series.begin(), line("nominal, stick held", channel(f.g1->outcome->held->trace, ch_time),
+                                             channel(f.g1->outcome->held->trace, ch_alpha), svg::Style::first));
+    p.series.insert(p.series.begin() + (f.g1->outcome->held ? 1 : 0),
+                    line("nominal, hands off", channel(f.g1->outcome->free->trace, ch_time),
+                         channel(f.g1->outcome->free->trace, ch_alpha), svg::Style::second));
+    p.x.min = 0;
+    h += pg.fig(svg::render(p), "Angle of attack of each sample flown hands-off through the same disturbance (thin grey "
+                                "lines; a line ends where its sample departs), with the nominal runs held (dark) and "
+                                "hands-off (light, dashed).");
+  }
+}
+
+// Section 7: the stick-free neutral point against the sampled hinge derivatives.
+void page_uncertainty_np(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
+  const UncertaintyResult& u = d.uncertainty;
+  // neutral point against Ch_alpha/Ch_delta when both are sampled
+  const auto ia = std::find(u.keys.begin(), u.keys.end(), "elevator.ch_alpha");
+  const auto id = std::find(u.keys.begin(), u.keys.end(), "elevator.ch_delta");
+  if (ia != u.keys.end() && id != u.keys.end()) {
+    const std::size_t ka = static_cast<std::size_t>(ia - u.keys.begin()), kd = static_cast<std::size_t>(id - u.keys.begin());
+    std::vector<double> rx, ry;
+    for (const auto& r : u.responses) {
+      if (!std::isfinite(r.np_free)) continue;
+      rx.push_back(r.inputs[ka] / r.inputs[kd]);
+      ry.push_back(r.np_free);
+    }
+    svg::Plot p;
+    p.id = "fig-band-np";
+    p.title = "Stick-free neutral point of each sample";
+    p.height = 250;
+    p.x = {"Ch\u03b1 / Ch\u03b4", "-"};
+    p.y = {"stick-free neutral point", "% MAC"};
+    p.y.pct = 100;
+    p.series.push_back(points("samples", rx, ry, svg::Style::first, svg::Marker::dot));
+    p.series.push_back(points("nominal", {a.elevator.ch_alpha / a.elevator.ch_delta}, {m.np_free.model}, svg::Style::second,
+                              svg::Marker::diamond));
+    p.refs.push_back({false, m.envelope_aft, "stated aft limit " + pct(m.envelope_aft), svg::Style::reference});
+    p.refs.push_back({false, cg, "analysed CG " + pct(cg), svg::Style::third});
+    h += pg.fig(svg::render(p), "The free-elevator factor depends on the ratio Ch\u03b1/Ch\u03b4: the larger the ratio, "
+                                "the more of the tail the floating elevator gives away, and the further forward the "
+                                "stick-free neutral point.");
+  }
+}
+
+void page_uncertainty(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
   h += "<h2 id=\"s7\">7. Uncertainty of the hinge moments</h2>\n";
   {
     const UncertaintyResult& u = d.uncertainty;
@@ -1401,90 +1529,15 @@ std::string page(const ReportData& d, const std::vector<DataFile>& files) {
              " (sample " + std::to_string(wr->index) + ", " + esc(inputs_text(u, wr->inputs)) + ").";
       h += "</p>\n";
     }
-    if (u.has_corners) {
-      Table c;
-      for (const auto& k : u.keys) {
-        const bool pa = k.find(".ch_") != std::string::npos;
-        c.head.push_back(esc(k) + (pa ? " [/deg]" : ""));
-        c.numeric.push_back(true);
-      }
-      for (const char* x : {"neutral point free [% MAC]", "margin at the stated aft limit [% MAC]", "largest real root free [1/s]"}) {
-        c.head.push_back(x);
-        c.numeric.push_back(true);
-      }
-      for (const auto& p : u.corners.points) {
-        std::vector<std::string> row;
-        for (std::size_t k = 0; k < u.keys.size(); ++k)
-          row.push_back(number(u.keys[k].find(".ch_") != std::string::npos ? p.inputs[k] * units::deg : p.inputs[k], 5));
-        if (!p.ok) {
-          row.push_back("\u2013");
-          row.push_back("\u2013");
-          row.push_back(esc(p.reason));
-        } else {
-          row.push_back(pct(p.np_free, 2));
-          row.push_back(plus_pct(p.np_free - m.envelope_aft, 2));
-          row.push_back(plus(p.max_real_free, 4));
-        }
-        c.rows.push_back(row);
-      }
-      h += "<p>The corners of the band, where the extremes of a monotonic effect lie:</p>\n" + table_html(c);
-    }
-    if (!u.t.empty() && f.g1 && f.g1->outcome->free) {
-      svg::Plot p;
-      p.id = "fig-band-alpha";
-      p.title = "Hands-off angle of attack of every sample";
-      p.x = {"time", "s"};
-      p.y = {"angle of attack", "deg"};
-      bool first = true;
-      for (const auto& al : u.alpha) {
-        if (al.empty()) continue;
-        std::vector<double> x(u.t.begin(), u.t.begin() + static_cast<long>(std::min(al.size(), u.t.size()))), y;
-        for (double v : al) y.push_back(units::to_deg(v));
-        y.resize(x.size());
-        p.series.push_back(line(first ? "each sample, hands off" : "", x, y, svg::Style::faint));
-        first = false;
-      }
-      if (f.g1->outcome->held)
-        p.series.insert(p.series.begin(), line("nominal, stick held", channel(f.g1->outcome->held->trace, ch_time),
-                                               channel(f.g1->outcome->held->trace, ch_alpha), svg::Style::first));
-      p.series.insert(p.series.begin() + (f.g1->outcome->held ? 1 : 0),
-                      line("nominal, hands off", channel(f.g1->outcome->free->trace, ch_time),
-                           channel(f.g1->outcome->free->trace, ch_alpha), svg::Style::second));
-      p.x.min = 0;
-      h += pg.fig(svg::render(p), "Angle of attack of each sample flown hands-off through the same disturbance (thin grey "
-                                  "lines; a line ends where its sample departs), with the nominal runs held (dark) and "
-                                  "hands-off (light, dashed).");
-    }
-    // neutral point against Ch_alpha/Ch_delta when both are sampled
-    const auto ia = std::find(u.keys.begin(), u.keys.end(), "elevator.ch_alpha");
-    const auto id = std::find(u.keys.begin(), u.keys.end(), "elevator.ch_delta");
-    if (ia != u.keys.end() && id != u.keys.end()) {
-      const std::size_t ka = static_cast<std::size_t>(ia - u.keys.begin()), kd = static_cast<std::size_t>(id - u.keys.begin());
-      std::vector<double> rx, ry;
-      for (const auto& r : u.responses) {
-        if (!std::isfinite(r.np_free)) continue;
-        rx.push_back(r.inputs[ka] / r.inputs[kd]);
-        ry.push_back(r.np_free);
-      }
-      svg::Plot p;
-      p.id = "fig-band-np";
-      p.title = "Stick-free neutral point of each sample";
-      p.height = 250;
-      p.x = {"Ch\u03b1 / Ch\u03b4", "-"};
-      p.y = {"stick-free neutral point", "% MAC"};
-      p.y.pct = 100;
-      p.series.push_back(points("samples", rx, ry, svg::Style::first, svg::Marker::dot));
-      p.series.push_back(points("nominal", {a.elevator.ch_alpha / a.elevator.ch_delta}, {m.np_free.model}, svg::Style::second,
-                                svg::Marker::diamond));
-      p.refs.push_back({false, m.envelope_aft, "stated aft limit " + pct(m.envelope_aft), svg::Style::reference});
-      p.refs.push_back({false, cg, "analysed CG " + pct(cg), svg::Style::third});
-      h += pg.fig(svg::render(p), "The free-elevator factor depends on the ratio Ch\u03b1/Ch\u03b4: the larger the ratio, "
-                                  "the more of the tail the floating elevator gives away, and the further forward the "
-                                  "stick-free neutral point.");
-    }
+    page_uncertainty_corners(pg, c);
+    page_uncertainty_time(pg, c);
+    page_uncertainty_np(pg, c);
   }
+}
 
-  // ---- 8. findings
+// Section: 8. findings.
+void page_findings(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
   h += "<h2 id=\"s8\">8. Findings</h2>\n";
   h += "<p>Each finding states what the analysis gives and compares it with a published line or a stated option. These are "
        "engineering comparisons to support a qualified reviewer; they are not compliance findings, which belong to "
@@ -1495,8 +1548,11 @@ std::string page(const ReportData& d, const std::vector<DataFile>& files) {
          esc(x.source_note) + ")</span><br><span class=\"k\">Comparison:</span> " + esc(x.comparison) + "</li>\n";
   }
   h += "</ol>\n";
+}
 
-  // ---- 9. cautions and method
+// Section: 9. cautions and method.
+void page_method(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
   h += "<h2 id=\"s9\">9. Criteria, method and cautions</h2>\n";
   {
     Table t;
@@ -1520,6 +1576,32 @@ std::string page(const ReportData& d, const std::vector<DataFile>& files) {
     for (const auto& df : files) h += "<li><code>" + esc(df.name) + "</code>: " + esc(df.what) + "</li>";
     h += "</ul>\n";
   }
+}
+
+#undef FP_PAGE_NAMES
+
+std::string page(const ReportData& d, const std::vector<DataFile>& files) {
+  PageCtx c{d, files, facts_of(d)};
+  const Scenario& s = d.scenario;
+  c.rho = isa_at(geopotential_altitude(s.condition.altitude)).density;
+  c.Veas = s.condition.airspeed * std::sqrt(c.rho / isa_at(0.0).density);
+  Page pg;
+  std::string& h = pg.html;
+  h += "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n";
+  h += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n";
+  h += "<meta name=\"generator\" content=\"floatpitch " + esc(d.version) + "\">\n";
+  h += "<title>" + esc(s.name) + " \u2014 pitch stability, stick held and free</title>\n";
+  h += "<style>" + std::string(kStyle) + "</style>\n</head>\n<body>\n";
+  page_summary(pg, c);
+  page_what(pg, c);
+  page_trim(pg, c);
+  page_static(pg, c);
+  page_dynamic(pg, c);
+  page_cg_sweep(pg, c);
+  page_gusts(pg, c);
+  page_uncertainty(pg, c);
+  page_findings(pg, c);
+  page_method(pg, c);
   h += "<div class=\"caution\"><strong>Caution.</strong> " + std::string(kCaution) + "</div>\n";
   h += "</body>\n</html>\n";
   return h;
