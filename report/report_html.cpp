@@ -22,6 +22,7 @@
 #include "analysis/response.hpp"
 #include "util/sha256.hpp"
 #include "report/svg.hpp"
+#include "scenario/key_info.hpp"
 #include "util/caution.hpp"
 
 namespace fp {
@@ -626,6 +627,7 @@ td.n { text-align: right; white-space: nowrap; font-variant-numeric: tabular-num
 td.wrap { text-align: left; white-space: normal; }
 table.kv td:first-child { width: 42%; color: #222; }
 table.compact td, table.compact th { padding: 1.5px 5px; }
+table.inputs td:first-child { white-space: nowrap; }
 figure { margin: 8px 0 12px; break-inside: avoid; }
 figcaption { font-size: 8.8pt; color: #333; margin-top: 2px; }
 svg.plot { display: block; max-width: 100%; height: auto; }
@@ -1037,6 +1039,20 @@ void page_summary(Page& pg, PageCtx& c) {
        "<li><a href=\"#s9\">Criteria, method and cautions</a></li></ol></nav>\n";
 }
 
+// Every input of the airplane and the case, with its meaning and allowed values as the key table
+// (scenario/keys.cpp) defines them: the report writes no parameter text of its own.
+std::string inputs_table_html(const Scenario& s) {
+  Table t;
+  t.head = {"key", "meaning", "value", "allowed"};
+  t.cls = "compact inputs";
+  for (const KeyValue& kv : key_values(s)) {
+    if (kv.table == "scenario" || kv.name == "name") continue;  // shown above
+    t.rows.push_back({"<code>" + esc(kv.name) + "</code>", esc(kv.meaning), esc(kv.value), esc(kv.range)});
+  }
+  return "<h3>Every input</h3>\n<p class=\"note\">As analysed, after includes and overrides; meanings, units and "
+         "allowed values are those of the key table that checks every scenario file.</p>\n" + table_html(t);
+}
+
 // Section: 1. what was analysed.
 void page_what(Page& pg, PageCtx& c) {
   FP_PAGE_NAMES(c);
@@ -1059,33 +1075,12 @@ void page_what(Page& pg, PageCtx& c) {
                          number(s.condition.airspeed, 2) + " m/s (" + kt(s.condition.airspeed, 1) + ") TAS, " + kt(Veas, 1) +
                          " EAS, flight path " + degs(s.condition.flight_path, 1) + " deg");
     row("1 g stall at this altitude", kt(d.stall_speed, 1) + " TAS (C<sub>L max</sub> " + number(d.cl_max, 2) + ")");
-    row("tail", number(a.tail.area, 2) + " m\u00b2, arm to its a.c. " + number(a.tail.x_ac, 2) + " m aft of LEMAC; tail volume " +
-                    number(m.cf.tail_volume, 3) + "; downwash gradient " + number(a.tail.deps_dalpha, 2) + ", lag: " +
-                    (a.tail.lag == DownwashLag::none ? "none" : a.tail.lag == DownwashLag::first_order ? "one first-order stage" :
-                     std::to_string(a.tail.lag_stages) + "-stage chain"));
-    row("elevator circuit", std::string(a.circuit.reversible ? "reversible" : "irreversible") + ", gearing " +
-                                number(a.circuit.gearing, 2) + " rad/m, stick mass " + number(a.circuit.stick_mass, 2) +
-                                " kg, damping " + number(a.circuit.damping, 1) + " N s/m");
-    row("springs and bobweight", "centering spring " + number(a.circuit.centering, 0) + " N/m, downspring " +
-                                     number(a.circuit.downspring, 1) + " N, bobweight " + number(a.circuit.bobweight, 1) + " N/g");
-    row("friction", "breakout " + number(a.circuit.friction, 1) + " N at the stick (smoothed over " +
-                        number(a.circuit.friction_speed, 3) + " m/s)");
-    row("elevator", number(a.elevator.area, 3) + " m\u00b2, chord " + number(a.elevator.chord, 3) + " m; stops " +
-                        degs(a.elevator.delta_min, 0) + " / +" + degs(a.elevator.delta_max, 0) + " deg");
-    row("hinge-moment derivatives", "Ch<sub>0</sub> " + number(a.elevator.ch0, 4) + ", Ch<sub>\u03b1</sub> " +
-                                        number(a.elevator.ch_alpha * units::deg, 4) + " /deg, Ch<sub>\u03b4</sub> " +
-                                        number(a.elevator.ch_delta * units::deg, 4) + " /deg, Ch<sub>tab</sub> " +
-                                        number(a.elevator.ch_tab * units::deg, 4) + " /deg, hinge damping " +
-                                        number(a.elevator.ch_rate, 2));
-    row("mass balance", "elevator " + number(a.elevator.mass, 2) + " kg, static mass moment " +
-                            number(a.elevator.mass_moment, 3) + " kg m (its CG " + number(1000 * std::abs(xe), 0) + " mm " +
-                            (xe >= 0 ? "aft of" : "ahead of") + " the hinge), inertia " + number(a.elevator.inertia, 3) +
-                            " kg m\u00b2");
-    row("tab", "trim tab range " + degs(a.circuit.tab_min, 0) + " to +" + degs(a.circuit.tab_max, 0) + " deg, \u03c4<sub>tab</sub> " +
-                   number(a.tail.tau_tab, 3) + ", geared ratio " + number(a.circuit.geared_tab_ratio, 2) + "; runs start with the tab " +
-                   (s.trim.tab_auto ? "set for zero stick force (hands-off trim)" : "at " + degs(s.trim.tab) + " deg"));
+    row("tail volume, elevator CG", "tail volume " + number(m.cf.tail_volume, 3) + "; elevator CG " +
+                                         number(1000 * std::abs(xe), 0) + " mm " + (xe >= 0 ? "aft of" : "ahead of") +
+                                         " the hinge");
     row("tool", "floatpitch " + esc(d.version));
     h += table_html(t);
+    h += inputs_table_html(s);
     h += "<h3>Input files</h3>\n";
     Table ft;
     ft.head = {"file", "bytes", "SHA-256"};

@@ -7,6 +7,8 @@
 #include <string>
 #include <vector>
 
+#include "scenario/scenario.hpp"
+
 namespace fp {
 
 struct KeyInfo {
@@ -21,5 +23,17 @@ struct KeyInfo {
 
 // The numeric keys of the tables ([wing], [tail], ..., [run]) in the order of the files.
 const std::vector<KeyInfo>& numeric_key_info();
+
+// One key of a scenario with its value, as the key table describes it (the report's input
+// rows): every key of the given tables, in the order of the files.
+struct KeyValue {
+  std::string name;          // dotted key, "wing.area"
+  std::string table;         // "wing"
+  std::string meaning;       // from the key table
+  std::string value;         // in the display unit, with the SI value beside it where it differs
+  std::string range;         // allowed values ("" for free text)
+};
+// tables: which tables to list ("wing", "tail", ...); empty: all of them.
+std::vector<KeyValue> key_values(const Scenario& s, const std::vector<std::string>& tables = {});
 
 }  // namespace fp

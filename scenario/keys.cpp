@@ -493,6 +493,23 @@ std::string range_text(const Key& k) {
   return r;
 }
 
+std::string allowed_text(const Key& k) {
+  switch (k.kind) {
+    case Kind::number:
+    case Kind::integer: return range_text(k);
+    case Kind::boolean: return "true, false";
+    case Kind::choice: {
+      std::string r;
+      for (const char* c : k.choices) r += (r.empty() ? "\"" : ", \"") + std::string(c) + "\"";
+      return r;
+    }
+    case Kind::text: return "any ASCII text";
+    case Kind::lift_table: return "alpha " + range_text(k) + ", at least 2 rows";
+    case Kind::tab_setting: return "\"auto\", or " + range_text(k);
+  }
+  return "";
+}
+
 std::string value_text(const Key& k, double si) {
   const double f = display_factor(k);
   std::string r = with_unit(fmt(si / f), display_unit(k));
@@ -571,23 +588,6 @@ std::string default_text(const keys::Key& k) {
   return "";
 }
 
-std::string allowed_text(const keys::Key& k) {
-  using keys::Kind;
-  switch (k.kind) {
-    case Kind::number:
-    case Kind::integer: return keys::range_text(k);
-    case Kind::boolean: return "true, false";
-    case Kind::choice: {
-      std::string r;
-      for (const char* c : k.choices) r += (r.empty() ? "\"" : ", \"") + std::string(c) + "\"";
-      return r;
-    }
-    case Kind::text: return "any ASCII text";
-    case Kind::lift_table: return "alpha " + keys::range_text(k) + ", at least 2 rows";
-    case Kind::tab_setting: return "\"auto\", or " + keys::range_text(k);
-  }
-  return "";
-}
 
 std::string unit_text(const keys::Key& k) {
   using keys::Kind;
@@ -600,7 +600,7 @@ std::string unit_text(const keys::Key& k) {
 
 void table_rows(std::string& out, std::span<const keys::Key> list) {
   for (const auto& k : list)
-    out += "| `" + std::string(k.name) + "` | " + unit_text(k) + " | " + k.meaning + " | " + allowed_text(k) +
+    out += "| `" + std::string(k.name) + "` | " + unit_text(k) + " | " + k.meaning + " | " + keys::allowed_text(k) +
            " | " + default_text(k) + " |\n";
 }
 

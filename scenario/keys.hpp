@@ -79,6 +79,8 @@ std::string fmt_exact(double v);      // shortest text that reads back to the sa
 
 // "0.05..200 m2", or "-57.2958..0 deg (-1..0 rad)" when the display unit is not SI.
 std::string range_text(const Key& k);
+// What a key allows, as the reference and the report write it (ranges, choices, "auto", ...).
+std::string allowed_text(const Key& k);
 // A value in the display unit and, when that is not SI, in SI: "110 kt (56.5889 m/s)".
 std::string value_text(const Key& k, double si);
 // nullopt when `si` is allowed by the key's own range; otherwise what is wrong.
