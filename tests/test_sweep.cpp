@@ -92,7 +92,7 @@ TEST_CASE("a point that cannot be trimmed is a row with its reason") {
   CHECK(csv.find("stall") != std::string::npos);
 }
 
-TEST_CASE("sampling: same seed, same samples; the band brackets the nominal neutral point") {
+TEST_CASE("sampling: same seed, same samples, and the band brackets the nominal neutral point") {
   SweepSpec s;
   s.scenario = kDemo;
   const Scenario base = load_scenario(kDemo);
