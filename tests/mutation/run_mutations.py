@@ -1,0 +1,143 @@
+#!/usr/bin/env python3
+"""Mutation run of the physics: each mutation flips the sign of, or drops, one physics term;
+the fast test suite must then fail ("killed"). A mutation that survives is either a missing
+test or an equivalent mutation (no observable effect), which must be explained beside it below.
+
+It works on a scratch copy of the working tree (nothing in the source tree is touched): it
+copies the tree, builds it once, then for each mutation applies it (the text must occur exactly
+once in its file), rebuilds the test program and the command line, runs the fast suite with
+--stop-on-failure, records killed / survived / stale (the text no longer exists: update the list),
+and reverts.
+
+usage: python3 tests/mutation/run_mutations.py [--scratch DIR] [--only SUBSTRING] [--jobs N]
+It takes about 1.5 min a mutation on 2 cores (so about an hour for the list): not run in CI.
+"""
+import argparse
+import os
+import shutil
+import subprocess
+import sys
+import time
+
+# (file, text, replacement, what it breaks). Keep each text unique in its file.
+MUTATIONS = [
+    # hinge-moment terms (model/dynamics.cpp, Ch = Ch0 + Ch_alpha alpha_t + Ch_delta delta + Ch_tab tab + rate term)
+    ("model/dynamics.cpp", "e.Ch = el.ch0 +", "e.Ch = -el.ch0 +", "sign of Ch0"),
+    ("model/dynamics.cpp", "el.ch_alpha * e.alpha_t", "-el.ch_alpha * e.alpha_t", "sign of Ch_alpha"),
+    ("model/dynamics.cpp", "el.ch_delta * de +", "-el.ch_delta * de +", "sign of Ch_delta"),
+    ("model/dynamics.cpp", "el.ch_tab * e.tab +", "0.0 * e.tab +", "Ch_tab dropped"),
+    ("model/dynamics.cpp", "el.ch_rate * ded * el.chord", "-el.ch_rate * ded * el.chord", "sign of the hinge damping"),
+    # tail lift
+    ("model/dynamics.cpp", "ap.tail.tau_elevator * de", "-ap.tail.tau_elevator * de", "sign of elevator effectiveness"),
+    ("model/dynamics.cpp", "ap.tail.tau_tab * e.tab", "-ap.tail.tau_tab * e.tab", "sign of tab effectiveness"),
+    ("model/dynamics.cpp", "e.qbar_t = ap.tail.eta * 0.5", "e.qbar_t = 0.5", "tail dynamic-pressure ratio dropped"),
+    ("model/dynamics.cpp", "ap.tail.eps0 + ap.tail.deps_dalpha * e.alpha", "ap.tail.eps0 - ap.tail.deps_dalpha * e.alpha", "sign of the downwash gradient"),
+    ("model/dynamics.cpp", "e.eps = nlag == 0 ? eps_target :", "e.eps = nlag >= 0 ? eps_target :", "downwash lag dropped"),
+    ("model/dynamics.cpp", "return V2{u + q * r.z - gx, w - q * r.x - gz};", "return V2{u + q * r.z - gx, w + q * r.x - gz};", "sign of the pitch-rate term at the surfaces (tail q l_t / V)"),
+    # gusts at wing and tail
+    ("model/dynamics.cpp", "const V2 vT = local_air(rT, e.gust_tail);", "const V2 vT = local_air(rW, e.gust_tail);", "tail samples the gust at the wing (no delay)"),
+    ("model/dynamics.cpp", "const double gz = gs.u * sth + (-gs.w) * cth;", "const double gz = gs.u * sth + (gs.w) * cth;", "sign of the vertical gust"),
+    ("model/dynamics.cpp", "const double gx = gs.u * cth - (-gs.w) * sth;", "const double gx = -gs.u * cth - (-gs.w) * sth;", "sign of the horizontal gust"),
+    # wing-body
+    ("model/dynamics.cpp", "ap.wing.cm_q * q * c", "-ap.wing.cm_q * q * c", "sign of wing-body pitch damping"),
+    ("model/dynamics.cpp", "ap.wing.cm_alpha_fus * e.alpha", "-ap.wing.cm_alpha_fus * e.alpha", "sign of the fuselage moment slope"),
+    ("model/dynamics.cpp", "ap.wing.k_induced * e.CL_wb * e.CL_wb", "0.0 * e.CL_wb", "induced drag dropped"),
+    # thrust
+    ("model/dynamics.cpp", "e.M += cross(V2{0.0, pr.z_thrust}, Ft);", "e.M -= cross(V2{0.0, pr.z_thrust}, Ft);", "sign of the thrust-line moment"),
+    # circuit
+    ("model/dynamics.cpp", "Hc -= ci.damping * ded", "Hc += ci.damping * ded", "sign of circuit damping"),
+    ("model/dynamics.cpp", "Hc -= (ci.friction / G)", "Hc += (ci.friction / G)", "sign of friction"),
+    ("model/dynamics.cpp", "Hc -= ci.centering * (de", "Hc += ci.centering * (de", "sign of the centering spring"),
+    ("model/dynamics.cpp", "Hc += ci.downspring / G;", "Hc -= ci.downspring / G;", "sign of the downspring"),
+    ("model/dynamics.cpp", "if (de > el.delta_max) Hc +=", "if (false) Hc +=", "upper stop dropped"),
+    ("model/dynamics.cpp", "if (de < el.delta_min) Hc +=", "if (false) Hc +=", "lower stop dropped"),
+    ("model/dynamics.hpp", "return tab_setting + c.geared_tab_ratio * de;", "return tab_setting - c.geared_tab_ratio * de;", "sign of the geared tab"),
+    # inertial coupling, bobweight, pilot
+    ("model/dynamics.cpp", "L.h += p.m_e * cross(rho, ae);", "L.h -= p.m_e * cross(rho, ae);", "sign of the mass-balance coupling"),
+    ("model/dynamics.cpp", "const double Hext = e.H_aero + Hc + H_pilot + cross(Srho, gvec);", "const double Hext = e.H_aero + Hc + H_pilot;", "elevator weight about the hinge dropped"),
+    ("model/dynamics.cpp", "L.h -= bob_per_n * n;", "L.h += bob_per_n * n;", "sign of the bobweight"),
+    ("model/dynamics.cpp", "e.stick_force = -G * H_pilot;", "e.stick_force = G * H_pilot;", "sign of the stick force"),
+    ("model/dynamics.cpp", "H_pilot = -ctl.pilot_force / G;", "H_pilot = ctl.pilot_force / G;", "sign of the pilot's force"),
+    ("model/dynamics.cpp", "H_pilot = -ci.held_stiffness * (de - ctl.hold_de)", "H_pilot = ci.held_stiffness * (de - ctl.hold_de)", "sign of cable stretch"),
+    # gust shape, turbulence filters, ISA
+    ("model/gust.cpp", "return 0.5 * g.amplitude * (1.0 - std::cos(std::numbers::pi * s / g.length));", "return 0.5 * g.amplitude * (1.0 - std::cos(2.0 * std::numbers::pi * s / g.length));", "1-cosine gust: H taken as the whole length"),
+    ("model/turbulence.cpp", "f.num = {1.0, std::sqrt(3.0)};", "f.num = {1.0, 1.0};", "Dryden w filter numerator"),
+    ("model/turbulence.cpp", "f.gain = sigma * std::sqrt(L / pi);", "f.gain = sigma * std::sqrt(L);", "Dryden/von Karman w gain without 1/pi"),
+    ("model/turbulence.cpp", "f.den = {1.0, 1.357, 0.1987};", "f.den = {1.0, 1.357, 0.0};", "von Karman u filter denominator"),
+    ("model/atmosphere.cpp", "const double L = -0.0065;", "const double L = -0.0060;", "ISA lapse rate"),
+    # closed forms (model/static.cpp)
+    ("model/static.cpp", "r.free_factor = 1.0 - tau * el.ch_alpha / chd;", "r.free_factor = 1.0 + tau * el.ch_alpha / chd;", "sign in the free-elevator factor"),
+    ("model/static.cpp", "r.mp_fixed = r.np_fixed - r.cm_q / (2.0 * r.mu);", "r.mp_fixed = r.np_fixed + r.cm_q / (2.0 * r.mu);", "sign of the maneuver-point shift (fixed)"),
+    ("model/static.cpp", "r.mp_free = r.np_free - r.cm_q_free / (2.0 * r.mu);", "r.mp_free = r.np_free + r.cm_q_free / (2.0 * r.mu);", "sign of the maneuver-point shift (free)"),
+    ("model/static.cpp", "r.np_apparent = r.np_free + r.hinge_constant / K;", "r.np_apparent = r.np_free - r.hinge_constant / K;", "sign of the apparent neutral-point shift"),
+    # trim equations
+    ("model/trim.cpp", "t.theta = alpha + gamma;", "t.theta = alpha - gamma;", "trim: pitch attitude from the flight path"),
+]
+
+FAST_EXCLUDE = "report_render|readme_commands|window|scipy|welch"
+
+
+def run(cmd, cwd, log=None, timeout=None):
+    r = subprocess.run(cmd, shell=True, cwd=cwd, capture_output=True, text=True, timeout=timeout)
+    if log is not None:
+        log.write(f"$ {cmd}\n{r.stdout[-4000:]}{r.stderr[-4000:]}\n")
+    return r.returncode
+
+
+def main():
+    ap = argparse.ArgumentParser()
+    ap.add_argument("--scratch", default="/tmp/floatpitch-mutation")
+    ap.add_argument("--only", default="")
+    ap.add_argument("--jobs", type=int, default=2)
+    a = ap.parse_args()
+    src = os.path.abspath(os.path.join(os.path.dirname(__file__), "..", ".."))
+    shutil.rmtree(a.scratch, ignore_errors=True)
+    shutil.copytree(src, a.scratch, ignore=shutil.ignore_patterns(".git", "build*", "out"))
+    log = open(os.path.join(a.scratch, "mutation.log"), "w")
+    b = os.path.join(a.scratch, "build")
+    if run(f"cmake -S . -B build -DCMAKE_BUILD_TYPE=Release -DFLOATPITCH_WINDOW=OFF -DFLOATPITCH_BENCH=OFF", a.scratch, log) or \
+       run(f"cmake --build build -j{a.jobs}", a.scratch, log):
+        print("the unmutated tree does not build: see", log.name)
+        return 2
+    base = run(f"ctest -j{a.jobs} -E '{FAST_EXCLUDE}'", b, log)
+    if base != 0:
+        print("the unmutated tree fails the fast suite: fix that first (see", log.name + ")")
+        return 2
+    results = []
+    for f, old, new, what in MUTATIONS:
+        if a.only and a.only not in what and a.only not in f:
+            continue
+        path = os.path.join(a.scratch, f)
+        text = open(path).read()
+        n = text.count(old)
+        if n != 1:
+            results.append(("stale", f, what))
+            print(f"stale     {f}: {what} (text found {n} times)")
+            continue
+        open(path, "w").write(text.replace(old, new))
+        t0 = time.time()
+        try:
+            if run(f"cmake --build build -j{a.jobs} --target floatpitch_tests floatpitch", a.scratch, log) != 0:
+                status = "killed"  # does not compile: counts as caught, but say so
+                what_out = what + " (build failed)"
+            else:
+                rc = run(f"ctest -j{a.jobs} -E '{FAST_EXCLUDE}' --stop-on-failure --timeout 300", b, log, timeout=3600)
+                status = "killed" if rc != 0 else "SURVIVED"
+                what_out = what
+        finally:
+            open(path, "w").write(text)
+        results.append((status, f, what_out))
+        print(f"{status:9s} {f}: {what_out}  ({time.time() - t0:.0f} s)", flush=True)
+    run(f"cmake --build build -j{a.jobs} --target floatpitch_tests floatpitch", a.scratch, log)
+    killed = sum(1 for r in results if r[0] == "killed")
+    live = [r for r in results if r[0] != "stale"]
+    print(f"\nkilled {killed} of {len(live)} mutations ({100.0 * killed / max(1, len(live)):.0f} %); "
+          f"stale {len(results) - len(live)}")
+    for r in results:
+        if r[0] == "SURVIVED":
+            print("  survived:", r[1], r[2])
+    return 0 if killed == len(live) else 1
+
+
+if __name__ == "__main__":
+    sys.exit(main())
