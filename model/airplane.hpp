@@ -39,7 +39,7 @@ struct WingBody {
   double cm_q = -3.0;          // wing-body and fuselage pitch damping dCm/d(q c/2V) [-] (-50..0)
 };
 
-// Downwash lag model (see model.md "State and equations of motion"): the tail feels the
+// Downwash lag model (DEVELOPERS.md, "The equations"): the tail feels the
 // downwash that the wing made about l_t/V earlier.
 enum class DownwashLag { none, first_order, chain };
 

@@ -17,7 +17,8 @@
 // dF_s/dV = -2 (A + G H_c)/V, vanishes at
 //     h_app = h'_n + H_c / (eta S_e c_e (Ch_delta/Cm_delta) (W/S)),
 // aft of h'_n when H_c pushes the trailing edge down. Derived here from the stick-force
-// equation of the textbooks above (checks.md sec. 4), with the constant term added.
+// equation of the textbooks above (USAF TPS Flying Qualities Phase vol. II ch. 5), with the
+// constant term added.
 //
 // All CG-like values are fractions of the MAC aft of its leading edge.
 #pragma once

@@ -47,7 +47,7 @@ TEST_CASE("Jacobian steps lie in the flat region") {
 
 TEST_CASE("short period against the two-state approximation") {
   // Two-state short period (Nelson, Flight Stability and Automatic Control, sec. 4.4; from
-  // memory for the notation, checks.md sec. 7):
+  // memory for the notation):
   //   omega_n^2 = Z_a M_q / V - M_a,  2 zeta omega_n = -(Z_a/V + M_q + M_adot)
   // with Z_a = -(CL_a + CD0) Q S / m, M_a = Cm_a Q S c / I_y, M_q = Cm_q (c/2V) Q S c / I_y and
   // M_adot = 0 here: the test airplane uses quasi-steady downwash (lag "none"). With a lagged

@@ -32,8 +32,8 @@ std::shared_ptr<const Plant> plant_of(const Airplane& a) { return std::make_shar
 }  // namespace
 
 TEST_CASE("ISA matches the standard atmosphere table") {
-  // ISO 2533:1975 / U.S. Standard Atmosphere 1976; values as tabulated in checks.md section 1
-  // (derived from the standard's constants; the 1000 m row as reprinted in engineering handbooks).
+  // ISO 2533:1975 / U.S. Standard Atmosphere 1976: values derived from the standard's constants
+  // (T0, p0, lapse, g0, R); the 1000 m row as the 1976 table is reprinted in engineering handbooks.
   struct Row { double H, T, p, rho, a; };
   const Row rows[] = {{0, 288.15, 101325, 1.22500, 340.29},   {1000, 281.65, 89875, 1.11164, 336.43},
                       {2000, 275.15, 79495, 1.00649, 332.53}, {3000, 268.65, 70109, 0.90912, 328.58},
@@ -85,8 +85,8 @@ TEST_CASE("trim is an equilibrium of the full model, held and free") {
 
 TEST_CASE("free-elevator float angle and tab from the hinge-moment balance") {
   // Float angle delta = -(Ch0 + Ch_alpha alpha_t + Ch_tab tab)/Ch_delta, and the tab for a given
-  // elevator, tab = -(Ch0 + Ch_alpha alpha_t + Ch_delta delta)/Ch_tab (checks.md sec. 4, derived
-  // from Ch = 0; Etkin and Reid sec. 2.6). Elevator without mass moment, no springs.
+  // elevator, tab = -(Ch0 + Ch_alpha alpha_t + Ch_delta delta)/Ch_tab (derived from Ch = 0;
+  // Etkin and Reid sec. 2.6). Elevator without mass moment, no springs.
   Airplane a = test::plain_airplane();
   a.elevator.ch0 = 0.01;
   const Plant p = make_plant(a);
@@ -238,7 +238,7 @@ TEST_CASE("energy is conserved with aerodynamics and thrust off") {
 }
 
 TEST_CASE("output grid does not depend on the solver's steps") {
-  // One integration path, output sampled from the dense output (style.md, Boost.Odeint roles):
+  // One integration path, output sampled from the dense output (Boost.Odeint's dense-output stepping):
   // tightening the tolerance by 1000 changes the peaks by less than 1e-4 relative.
   const auto p = plant_of(test::plain_airplane());
   const Trim t = trim_free(*p, test::cruise());
@@ -266,7 +266,7 @@ TEST_CASE("output grid does not depend on the solver's steps") {
 }
 
 TEST_CASE("a numerical failure is reported as such, never as a departure") {
-  // style.md rule 7: a failure of the integration stops the run with a structured reason. An
+  // A failure of the integration stops the run with a structured reason (common practice). An
   // absurdly stiff stop contact (beyond the scenario's allowed range, set directly here) with the
   // elevator started deep inside it makes the step size collapse.
   Airplane a = test::plain_airplane();

@@ -1,7 +1,7 @@
 // test_static.cpp — stick-fixed and stick-free static stability against the published
 // formulas: Etkin and Reid, Dynamics of Flight (3rd ed.), sec. 2.3-2.6 (tail volume, total lift
 // slope, neutral point, free-elevator factor); the stick-force and stick-force-per-g equations
-// as given in USAF Test Pilot School, Flying Qualities Phase, vol. II ch. 5-6 (checks.md sec. 4).
+// as given in USAF Test Pilot School, Flying Qualities Phase, vol. II ch. 5-6.
 #include <doctest/doctest.h>
 
 #include <cmath>
@@ -56,7 +56,7 @@ TEST_CASE("closed form and the full model agree on a linear-aerodynamics airplan
 }
 
 TEST_CASE("stick-force gradient and force per g vanish at the stick-free neutral and maneuver points") {
-  // Published property of the stick-force equations (TPS vol. II ch. 5-6; checks.md sec. 4):
+  // Published property of the stick-force equations (TPS vol. II ch. 5-6):
   // dF/dV at trim is zero when h = h'_n, dF/dn is zero when h = h'_m.
   const Airplane a = test::plain_airplane();
   const Condition c = test::cruise(55.0);
@@ -84,7 +84,8 @@ TEST_CASE("stick-force gradient and force per g vanish at the stick-free neutral
 
 TEST_CASE("free neutral point ahead of the fixed one for the usual hinge signs, aft when Ch_alpha > 0") {
   // Etkin and Reid sec. 2.6: with F = 1 - tau Ch_alpha/Ch_delta < 1 the free point moves forward;
-  // a strongly balanced surface with Ch_alpha > 0 gives F > 1 and moves it aft (checks.md sec. 5).
+  // a strongly balanced surface with Ch_alpha > 0 gives F > 1 and moves it aft (Ames and Sears,
+  // NACA Report 721: balanced surfaces).
   const Condition c = test::cruise(55.0);
   {
     const Airplane a = test::plain_airplane();

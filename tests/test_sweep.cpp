@@ -47,7 +47,7 @@ TEST_CASE("the three boundary methods agree within 0.005 MAC on a linear-aerodyn
 }
 
 TEST_CASE("sweep results do not depend on the number of threads") {
-  // Determinism (style.md, Box2D's practice): same numbers and row order whatever --jobs is.
+  // Determinism (common practice): same numbers and row order whatever --jobs is.
   SweepSpec s = cg_sweep(kDemo, 0.20, 0.34, 0.02);
   s.run_seconds = 5.0;
   const auto a = sweep_json(run_sweep(s, 1, false));
