@@ -21,7 +21,7 @@ if [[ "${FLOATPITCH_QUICK:-0}" != 1 ]]; then
         -DFLOATPITCH_BENCH=OFF > build-asan.log 2>&1 || { cat build-asan.log; exit 1; }
   cmake --build build-asan -j$jobs >> build-asan.log 2>&1 || { tail -80 build-asan.log; exit 1; }
   (cd build-asan && ASAN_OPTIONS=detect_leaks=0 UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
-     ctest --output-on-failure -j$jobs -E 'window')
+     ctest --output-on-failure -j$jobs -E 'window|readme_commands')
 
   echo "== fuzz the scenario loader (${FLOATPITCH_FUZZ_SECONDS:-60} s)"
   bash tests/fuzz/run_fuzz.sh "${FLOATPITCH_FUZZ_SECONDS:-60}"
