@@ -1,6 +1,8 @@
 // app.hpp — the window's interface, rebuilt every frame from the session and a few view
 // settings: toolbar, the scenario/edit/inputs/analysis panel, the side view, the complex plane
 // of the modes with the CG slider, the time plots, and the status line with the cautions.
+// The class is defined over several files: app.cpp (the frame and the files), app_actions.cpp
+// (time, script actions, keys) and one panel_*.cpp a panel; they share this state.
 //
 // Time: with a person at the window the simulated time follows the wall clock times the speed
 // factor; in scripted or headless use (a script or a frame count given) every frame advances
@@ -41,6 +43,10 @@ struct Options {
 
 inline constexpr const char* kCautions = fp::kCaution;
 
+// The live gust's choices (Inputs panel, toolbar tooltip).
+inline constexpr const char* kGustShapes[] = {"1-cosine", "sharp edge", "ramp"};
+inline constexpr const char* kGustComponents[] = {"vertical (up +)", "horizontal (tail +)"};
+
 class App {
  public:
   App(Options o, std::vector<Action> script, Fonts fonts);
@@ -68,26 +74,60 @@ class App {
   }
 
  private:
+  // app.cpp: files
   void open(const std::string& path);
+  void remember_recent(const std::string& path);
+
+  // app_actions.cpp: time, script actions, keys, and the commands that buttons and keys share
   void advance(float wall_dt);
   bool run_action(const Action& a);  // true when the simulations were restarted
   void handle_keys();
   void toggle_hold();
   void gust_now();
+  void save_scenario();
+  void export_now();
+  void request_screenshot();
+  void follow_live_end();
 
+  // panel_toolbar.cpp
   void toolbar(const ImVec2& pos, const ImVec2& size);
+  void toolbar_states(float last_x, float width);
+  // panel_left.cpp: the tabs of the left panel
   void left_panel(const ImVec2& pos, const ImVec2& size);
+  // panel_scenario.cpp
   void tab_scenario();
+  void scenario_files();
+  void scenario_summary();
+  // panel_edit.cpp
   void tab_edit();
+  void edit_choices();
+  void key_tables();
+  void key_row(const fp::KeyInfo& k);
+  // panel_inputs.cpp
   void tab_inputs();
+  // panel_analysis.cpp
   void tab_analysis();
+  // panel_side_view.cpp (and draw_sfml above)
+  void update_side_view_state();
   void side_panel(const ImVec2& pos, const ImVec2& size);
+  void mac_tooltip();
+  // panel_modes.cpp: the complex plane of the modes, the CG slider, the warnings
+  struct RootsExtent {             // what the view fits
+    double xlo = -0.1, xhi = 0.1, ymax = 0.1;
+  };
   void modes_panel(const ImVec2& pos, const ImVec2& size);
+  void cg_slider(float panel_width);
+  void stability_lines();
+  RootsExtent collect_roots();
+  void roots_fit_choice();
+  void roots_plane(const RootsExtent& extent);
+  // panel_time_plots.cpp
   void plots_panel(const ImVec2& pos, const ImVec2& size);
+  void time_plots_legend();
+  std::vector<RefLine> event_marks() const;
+  // panel_status.cpp
   void status_line(const ImVec2& pos, const ImVec2& size);
   float message_width() const;  // room the last message takes at the right of the status line
-  void key_row(const fp::KeyInfo& k);
-  void remember_recent(const std::string& path);
 
   Options opt_;
   std::vector<Action> script_;

@@ -238,87 +238,67 @@ std::vector<std::size_t> reduce_min_max(const double* x, const double* y, std::s
   return out;
 }
 
-void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const RefLine> refs) {
-  IM_ASSERT(spec.x && spec.y && "a plot needs its two axes");
-  ImGuiIO& io = ImGui::GetIO();
-  ImDrawList* dl = ImGui::GetWindowDrawList();
-  ImFont* sf = small_font();
-  const float fs = small_size();
+namespace {
 
-  ImVec2 size = spec.size;
-  const ImVec2 avail = ImGui::GetContentRegionAvail();
-  if (size.x <= 0) size.x = avail.x;
-  if (size.y <= 0) size.y = avail.y;
-  size.x = std::max(size.x, 80.0f);
-  size.y = std::max(size.y, 60.0f);
-  const ImVec2 f0 = ImGui::GetCursorScreenPos();
-  const ImVec2 f1(f0.x + size.x, f0.y + size.y);
+// ---- the parts of plot(), in the order it calls them
 
-  ImGui::PushID(spec.id);
-  ImGui::InvisibleButton("##area", size);
-  const bool hovered = ImGui::IsItemHovered();
-  const bool active = ImGui::IsItemActive();
-  ImGui::PopID();
+// Automatic x: the last `x_follow_span` of the data from 0 on, or all the data.
+void fit_x(AxisRange& X, const PlotSpec& spec, std::span<const Series> series) {
+  if (spec.x_follow_span > 0.0) {
+    double end = 0.0;
+    for (const auto& s : series)
+      if (s.n > 0 && s.sorted_x) end = std::max(end, s.x[s.n - 1] * s.x_factor);
+    X.lo = std::max(0.0, end - spec.x_follow_span);
+    X.hi = std::max(end, spec.x_follow_span);
+  } else {
+    Extent ex;
+    for (const auto& s : series)
+      for (std::size_t i = 0; i < s.n; ++i) ex.add(s.x[i] * s.x_factor);
+    fit_axis(X, ex, 1e-9, spec.x_include_zero, 8, false);
+  }
+}
 
-  // ---- layout: title row, y labels on the left, x labels below
-  const float title_h = ImGui::GetFontSize() + 3.0f;
-  const float xlab_h = fs + 5.0f;
+// Automatic y: the points with x in the shown x range, snapped to round ticks.
+void fit_y(AxisRange& Y, const AxisRange& X, const PlotSpec& spec, std::span<const Series> series, int max_ticks) {
+  Extent ey;
+  for (const auto& s : series) {
+    std::size_t i0, i1;
+    visible_range(s, X.lo, X.hi, i0, i1);
+    for (std::size_t i = i0; i < i1; ++i) {
+      const double xs = s.x[i] * s.x_factor;
+      if (!s.sorted_x && (xs < X.lo || xs > X.hi)) continue;
+      ey.add(s.y[i] * s.y_factor);
+    }
+  }
+  fit_axis(Y, ey, spec.y_min_span, spec.y_include_zero, max_ticks, true);
+}
+
+// The y ticks and their labels (the widest label decides the left margin).
+struct YTicks {
+  std::vector<double> at;
+  std::vector<std::string> labels;
+  double step = 1.0;
+  float width = 0.0f;
+};
+
+YTicks y_ticks(double lo, double hi, int max_ticks) {
+  YTicks t;
+  t.at = nice_ticks(lo, hi, max_ticks, &t.step);
+  for (double v : t.at) {
+    t.labels.push_back(tick_text(v, t.step));
+    t.width = std::max(t.width, text_size(small_font(), t.labels.back().c_str()).x);
+  }
+  return t;
+}
+
+// The mouse on the plot (mapped as it was drawn last): the wheel zooms x (Shift: y), a drag
+// pans, a double click goes back to automatic ranges; the hover sets the shared cursor.
+// Returns whether the mouse is in the plot area.
+bool handle_mouse(const Mapper& m, const PlotSpec& spec, bool hovered, bool active) {
+  const ImGuiIO& io = ImGui::GetIO();
   AxisRange& X = *spec.x;
   AxisRange& Y = *spec.y;
-
-  // ---- automatic ranges
-  if (X.automatic) {
-    if (spec.x_follow_span > 0.0) {
-      double end = 0.0;
-      for (const auto& s : series)
-        if (s.n > 0 && s.sorted_x) end = std::max(end, s.x[s.n - 1] * s.x_factor);
-      X.lo = std::max(0.0, end - spec.x_follow_span);
-      X.hi = std::max(end, spec.x_follow_span);
-    } else {
-      Extent ex;
-      for (const auto& s : series)
-        for (std::size_t i = 0; i < s.n; ++i) ex.add(s.x[i] * s.x_factor);
-      fit_axis(X, ex, 1e-9, spec.x_include_zero, 8, false);
-    }
-  }
-  if (!(X.hi > X.lo)) X.hi = X.lo + 1.0;
-  const float plot_h_guess = size.y - title_h - xlab_h;
-  const int y_ticks_max = std::max(2, static_cast<int>(plot_h_guess / (fs * 2.2f)));
-  if (Y.automatic) {
-    Extent ey;
-    for (const auto& s : series) {
-      std::size_t i0, i1;
-      visible_range(s, X.lo, X.hi, i0, i1);
-      for (std::size_t i = i0; i < i1; ++i) {
-        const double xs = s.x[i] * s.x_factor;
-        if (!s.sorted_x && (xs < X.lo || xs > X.hi)) continue;
-        ey.add(s.y[i] * s.y_factor);
-      }
-    }
-    fit_axis(Y, ey, spec.y_min_span, spec.y_include_zero, y_ticks_max, true);
-  }
-  if (!(Y.hi > Y.lo)) Y.hi = Y.lo + 1.0;
-
-  // y tick labels decide the left margin
-  double ystep = 1.0;
-  const std::vector<double> yt = nice_ticks(Y.lo, Y.hi, y_ticks_max, &ystep);
-  std::vector<std::string> ylabels;
-  float ylab_w = 0.0f;
-  for (double v : yt) {
-    ylabels.push_back(tick_text(v, ystep));
-    ylab_w = std::max(ylab_w, text_size(sf, ylabels.back().c_str()).x);
-  }
-  Mapper m;
-  m.p0 = ImVec2(f0.x + ylab_w + 8.0f, f0.y + title_h);
-  m.p1 = ImVec2(f1.x - 4.0f, f1.y - xlab_h);
-  if (m.p1.x - m.p0.x < 20.0f || m.p1.y - m.p0.y < 10.0f) return;  // too small to draw
-  m.x0 = X.lo;
-  m.x1 = X.hi;
-  m.y0 = Y.lo;
-  m.y1 = Y.hi;
   const float W = m.p1.x - m.p0.x, H = m.p1.y - m.p0.y;
-
-  // ---- mouse: zoom, pan, reset, hover
   const bool in_area = hovered && io.MousePos.x >= m.p0.x && io.MousePos.x <= m.p1.x &&
                        io.MousePos.y >= m.p0.y && io.MousePos.y <= m.p1.y;
   if (hovered && io.MouseWheel != 0.0f) {
@@ -345,29 +325,29 @@ void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const 
     Y.automatic = true;
   }
   if (in_area && spec.cursor) spec.cursor->next = m.ix(io.MousePos.x);
-  m.x0 = X.lo;
-  m.x1 = X.hi;
-  m.y0 = Y.lo;
-  m.y1 = Y.hi;
+  return in_area;
+}
 
-  if (spec.geometry) *spec.geometry = PlotGeometry{m.p0, m.p1, m.x0, m.x1, m.y0, m.y1, {0, 0}, {0, 0}};
-
-  // ---- frame, grid, ticks
+// The title (clipped to the plot's width), the grid, and the tick labels with the x unit.
+void draw_axes(ImDrawList* dl, const PlotSpec& spec, const Mapper& m, const YTicks& yt, ImVec2 f0, ImVec2 f1,
+               float title_h) {
+  ImFont* sf = small_font();
+  const float fs = small_size();
   if ((g_theme.background >> IM_COL32_A_SHIFT) & 0xFF) dl->AddRectFilled(m.p0, m.p1, g_theme.background);
   {
     const ImVec4 clip(f0.x, f0.y, f1.x - 2.0f, f0.y + title_h);  // a long title stops at the plot's edge
     dl->AddText(ImGui::GetFont(), ImGui::GetFontSize(), ImVec2(f0.x + 2.0f, f0.y), g_theme.title, spec.title.c_str(),
                 nullptr, 0.0f, &clip);
   }
-  for (std::size_t k = 0; k < yt.size(); ++k) {
-    const float y = m.sy(yt[k]);
-    dl->AddLine(ImVec2(m.p0.x, y), ImVec2(m.p1.x, y), yt[k] == 0.0 ? g_theme.zero : g_theme.grid, 1.0f);
-    const ImVec2 ts = text_size(sf, ylabels[k].c_str());
-    dl->AddText(sf, fs, ImVec2(m.p0.x - 5.0f - ts.x, y - ts.y * 0.5f), g_theme.text, ylabels[k].c_str());
+  for (std::size_t k = 0; k < yt.at.size(); ++k) {
+    const float y = m.sy(yt.at[k]);
+    dl->AddLine(ImVec2(m.p0.x, y), ImVec2(m.p1.x, y), yt.at[k] == 0.0 ? g_theme.zero : g_theme.grid, 1.0f);
+    const ImVec2 ts = text_size(sf, yt.labels[k].c_str());
+    dl->AddText(sf, fs, ImVec2(m.p0.x - 5.0f - ts.x, y - ts.y * 0.5f), g_theme.text, yt.labels[k].c_str());
   }
   double xstep = 1.0;
-  const int x_ticks_max = std::max(2, static_cast<int>(W / (fs * 4.5f)));
-  const std::vector<double> xt = nice_ticks(X.lo, X.hi, x_ticks_max, &xstep);
+  const int x_ticks_max = std::max(2, static_cast<int>((m.p1.x - m.p0.x) / (fs * 4.5f)));
+  const std::vector<double> xt = nice_ticks(m.x0, m.x1, x_ticks_max, &xstep);
   const std::string xunit = spec.x_unit.empty() ? std::string() : "[" + spec.x_unit + "]";
   const float xunit_w = text_size(sf, xunit.c_str()).x;
   const float xunit_x = m.p1.x - xunit_w;
@@ -381,9 +361,12 @@ void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const 
     if (!xunit.empty() && tx + ts.x > xunit_x - 6.0f) continue;  // the unit keeps its place
     dl->AddText(sf, fs, ImVec2(tx, m.p1.y + 3.0f), g_theme.text, s.c_str());
   }
+}
 
-  // ---- reference lines and series, clipped to the plot area
-  dl->PushClipRect(m.p0, m.p1, true);
+// Reference lines with their labels (inside the clip of the plot area).
+void draw_ref_lines(ImDrawList* dl, const Mapper& m, std::span<const RefLine> refs) {
+  ImFont* sf = small_font();
+  const float fs = small_size();
   std::vector<float> label_row_end(3, -1e9f);  // vertical lines' labels go down a row when they would touch
   for (const auto& r : refs) {
     if (r.vertical) {
@@ -410,30 +393,41 @@ void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const 
       }
     }
   }
+}
+
+// The screen points of a series' line: a min/max reduction when it has many samples.
+void line_points(const Mapper& m, const Series& s, std::size_t i0, std::size_t i1, std::vector<ImVec2>& pts) {
+  pts.clear();
+  const float W = m.p1.x - m.p0.x, H = m.p1.y - m.p0.y;
+  const int columns = std::max(8, static_cast<int>(W / 3.0f));  // a column every 3 px
+  if (s.sorted_x && i1 - i0 > static_cast<std::size_t>(2 * columns) && s.x_factor > 0.0) {
+    // a column whose samples span less than a pixel is drawn with one point
+    const double y_tol = std::abs((m.y1 - m.y0) / static_cast<double>(H) / s.y_factor);
+    const auto idx = reduce_min_max(s.x, s.y, i0, i1, m.x0 / s.x_factor, m.x1 / s.x_factor, columns, y_tol);
+    pts.reserve(idx.size());
+    for (std::size_t k : idx) pts.emplace_back(m.sx(s.x[k] * s.x_factor), m.sy(s.y[k] * s.y_factor));
+  } else {
+    pts.reserve(i1 - i0);
+    for (std::size_t k = i0; k < i1; ++k) {
+      const double xv = s.x[k] * s.x_factor, yv = s.y[k] * s.y_factor;
+      if (!std::isfinite(xv) || !std::isfinite(yv)) continue;
+      pts.emplace_back(m.sx(xv), m.sy(yv));
+    }
+  }
+}
+
+// The series (lines and markers). Returns a sample of what was drawn, to keep the legend off
+// the data.
+std::vector<ImVec2> draw_series(ImDrawList* dl, const Mapper& m, std::span<const Series> series) {
   std::vector<ImVec2> pts;
-  std::vector<ImVec2> drawn;  // a sample of what was drawn, to keep the legend off the data
+  std::vector<ImVec2> drawn;
   for (const auto& s : series) {
     if (s.n == 0) continue;
     std::size_t i0, i1;
-    visible_range(s, X.lo, X.hi, i0, i1);
+    visible_range(s, m.x0, m.x1, i0, i1);
     if (i1 <= i0) continue;
     if (s.line) {
-      pts.clear();
-      const int columns = std::max(8, static_cast<int>(W / 3.0f));  // a column every 3 px
-      if (s.sorted_x && i1 - i0 > static_cast<std::size_t>(2 * columns) && s.x_factor > 0.0) {
-        // a column whose samples span less than a pixel is drawn with one point
-        const double y_tol = std::abs((Y.hi - Y.lo) / static_cast<double>(H) / s.y_factor);
-        const auto idx = reduce_min_max(s.x, s.y, i0, i1, X.lo / s.x_factor, X.hi / s.x_factor, columns, y_tol);
-        pts.reserve(idx.size());
-        for (std::size_t k : idx) pts.emplace_back(m.sx(s.x[k] * s.x_factor), m.sy(s.y[k] * s.y_factor));
-      } else {
-        pts.reserve(i1 - i0);
-        for (std::size_t k = i0; k < i1; ++k) {
-          const double xv = s.x[k] * s.x_factor, yv = s.y[k] * s.y_factor;
-          if (!std::isfinite(xv) || !std::isfinite(yv)) continue;
-          pts.emplace_back(m.sx(xv), m.sy(yv));
-        }
-      }
+      line_points(m, s, i0, i1, pts);
       drawn.insert(drawn.end(), pts.begin(), pts.end());
       if (pts.size() >= 2) {
         if (s.dashed) dashed_polyline(dl, pts, s.color, s.thickness);
@@ -450,128 +444,208 @@ void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const 
       }
     }
   }
+  return drawn;
+}
 
-  // ---- shared cursor: a vertical line and the values where it crosses each series
-  const bool cursor_here = spec.cursor && spec.cursor->valid() && !spec.nearest_readout &&
-                           spec.cursor->x >= X.lo && spec.cursor->x <= X.hi;
+// The shared cursor: a vertical line and the values where it crosses each series. Returns the
+// values (NaN where a series has none, all NaN when the cursor is not in this plot).
+std::vector<double> draw_cursor(ImDrawList* dl, const Mapper& m, const PlotSpec& spec, std::span<const Series> series) {
   std::vector<double> values(series.size(), std::numeric_limits<double>::quiet_NaN());
-  if (cursor_here) {
-    const float cx = m.sx(spec.cursor->x);
-    dl->AddLine(ImVec2(cx, m.p0.y), ImVec2(cx, m.p1.y), g_theme.cursor, 1.0f);
-    for (std::size_t k = 0; k < series.size(); ++k) {
-      values[k] = value_at(series[k], spec.cursor->x);
-      if (std::isfinite(values[k])) {
-        const ImVec2 c(cx, m.sy(values[k]));
-        dl->AddCircleFilled(c, 3.0f, series[k].color, 10);
-        dl->AddCircle(c, 3.5f, IM_COL32(255, 255, 255, 220), 10, 1.0f);
-      }
+  const bool cursor_here = spec.cursor && spec.cursor->valid() && !spec.nearest_readout &&
+                           spec.cursor->x >= m.x0 && spec.cursor->x <= m.x1;
+  if (!cursor_here) return values;
+  const float cx = m.sx(spec.cursor->x);
+  dl->AddLine(ImVec2(cx, m.p0.y), ImVec2(cx, m.p1.y), g_theme.cursor, 1.0f);
+  for (std::size_t k = 0; k < series.size(); ++k) {
+    values[k] = value_at(series[k], spec.cursor->x);
+    if (std::isfinite(values[k])) {
+      const ImVec2 c(cx, m.sy(values[k]));
+      dl->AddCircleFilled(c, 3.0f, series[k].color, 10);
+      dl->AddCircle(c, 3.5f, IM_COL32(255, 255, 255, 220), 10, 1.0f);
     }
   }
+  return values;
+}
+
+// The legend in the corner that hides the fewest drawn points (top right first on a tie), with
+// the values at the cursor when there are some.
+void draw_legend(ImDrawList* dl, const Mapper& m, const PlotSpec& spec, std::span<const Series> series,
+                 const std::vector<double>& values, double ystep, const std::vector<ImVec2>& drawn) {
+  ImFont* sf = small_font();
+  const float fs = small_size();
+  const float sample_w = 22.0f, pad = 4.0f, row = fs + 2.0f;
+  float label_w = 0.0f, value_w = 0.0f;
+  int rows = 0;
+  std::vector<std::string> vtext(series.size());
+  const int dec = std::max(0, static_cast<int>(std::ceil(-std::log10(ystep) - 1e-9)) + 1 + spec.y_decimals_extra);
+  for (std::size_t k = 0; k < series.size(); ++k) {
+    if (!series[k].in_legend) continue;
+    ++rows;
+    label_w = std::max(label_w, text_size(sf, series[k].label.c_str()).x);
+    if (std::isfinite(values[k])) {
+      vtext[k] = number_text(values[k], dec);
+      value_w = std::max(value_w, text_size(sf, vtext[k].c_str()).x);
+    }
+  }
+  if (rows == 0) return;
+  const float w = pad * 3 + sample_w + label_w + (value_w > 0 ? value_w + pad * 2 : 0.0f);
+  const float lh = rows * row + pad;
+  const ImVec2 corners[4] = {ImVec2(m.p1.x - w - 4.0f, m.p0.y + 4.0f), ImVec2(m.p0.x + 4.0f, m.p0.y + 4.0f),
+                             ImVec2(m.p1.x - w - 4.0f, m.p1.y - lh - 4.0f), ImVec2(m.p0.x + 4.0f, m.p1.y - lh - 4.0f)};
+  int best = 0;
+  std::size_t best_count = SIZE_MAX;
+  for (int k = 0; k < 4; ++k) {
+    const ImVec2 c0(corners[k].x - 3.0f, corners[k].y - 3.0f), c1(corners[k].x + w + 3.0f, corners[k].y + lh + 3.0f);
+    std::size_t count = 0;
+    for (const ImVec2& q : drawn) count += q.x >= c0.x && q.x <= c1.x && q.y >= c0.y && q.y <= c1.y;
+    if (count < best_count) {
+      best_count = count;
+      best = k;
+    }
+  }
+  const ImVec2 a = corners[best];
+  const ImVec2 b(a.x + w, a.y + lh);
+  if (!(a.x > m.p0.x + 20.0f && b.y < m.p1.y)) return;
+  if (spec.geometry) {
+    spec.geometry->legend0 = a;
+    spec.geometry->legend1 = b;
+  }
+  dl->AddRectFilled(a, b, g_theme.legend_bg);
+  float y = a.y + pad * 0.5f;
+  for (std::size_t k = 0; k < series.size(); ++k) {
+    if (!series[k].in_legend) continue;
+    legend_sample(dl, ImVec2(a.x + pad, y + row * 0.5f), sample_w, series[k]);
+    dl->AddText(sf, fs, ImVec2(a.x + pad * 2 + sample_w, y), g_theme.text, series[k].label.c_str());
+    if (!vtext[k].empty()) {
+      const float vw = text_size(sf, vtext[k].c_str()).x;
+      dl->AddText(sf, fs, ImVec2(b.x - pad - vw, y), g_theme.title, vtext[k].c_str());
+    }
+    y += row;
+  }
+}
+
+// The readout of a scatter plot: the point of any series nearest the mouse (within 14 px,
+// ringed), else the mouse's own coordinates.
+std::string nearest_point_text(ImDrawList* dl, const Mapper& m, const PlotSpec& spec, std::span<const Series> series) {
+  const ImGuiIO& io = ImGui::GetIO();
+  char buf[160];
+  float best = 14.0f * 14.0f;
+  const Series* bs = nullptr;
+  std::size_t bi = 0;
+  for (const auto& s : series)
+    for (std::size_t i = 0; i < s.n; ++i) {
+      const float dx = m.sx(s.x[i] * s.x_factor) - io.MousePos.x;
+      const float dy = m.sy(s.y[i] * s.y_factor) - io.MousePos.y;
+      if (dx * dx + dy * dy < best) {
+        best = dx * dx + dy * dy;
+        bs = &s;
+        bi = i;
+      }
+    }
+  if (!bs) {
+    std::snprintf(buf, sizeof buf, "x %s %s\ny %s %s", number_text(m.ix(io.MousePos.x), 3).c_str(),
+                  spec.x_unit.c_str(), number_text(m.iy(io.MousePos.y), 3).c_str(), spec.y_unit.c_str());
+    return buf;
+  }
+  std::snprintf(buf, sizeof buf, "%s\nx %s %s\ny %s %s", bs->label.c_str(),
+                number_text(bs->x[bi] * bs->x_factor, 3).c_str(), spec.x_unit.c_str(),
+                number_text(bs->y[bi] * bs->y_factor, 3).c_str(), spec.y_unit.c_str());
+  std::string text = buf;
+  if (bs->tag) {
+    std::snprintf(buf, sizeof buf, "\n%s %s", bs->tag_name, number_text(bs->tag[bi], bs->tag_decimals).c_str());
+    text += buf;
+  }
+  const ImVec2 c(m.sx(bs->x[bi] * bs->x_factor), m.sy(bs->y[bi] * bs->y_factor));
+  dl->AddCircle(c, 6.0f, g_theme.cursor, 14, 1.5f);
+  return text;
+}
+
+// The readout box beside the mouse in the hovered plot: the time (the legend gives the values)
+// or, for a scatter plot, the nearest point.
+void draw_readout(ImDrawList* dl, const Mapper& m, const PlotSpec& spec, std::span<const Series> series) {
+  const ImGuiIO& io = ImGui::GetIO();
+  ImFont* sf = small_font();
+  const float fs = small_size();
+  std::string text;
+  if (spec.nearest_readout) {
+    text = nearest_point_text(dl, m, spec, series);
+  } else {
+    char buf[160];
+    std::snprintf(buf, sizeof buf, "%s %s", number_text(m.ix(io.MousePos.x), 2).c_str(), spec.x_unit.c_str());
+    text = buf;
+  }
+  const ImVec2 ts = text_size(sf, text.c_str());
+  ImVec2 a(io.MousePos.x + 10.0f, io.MousePos.y - ts.y - 8.0f);
+  if (a.x + ts.x + 6.0f > m.p1.x) a.x = io.MousePos.x - ts.x - 16.0f;
+  if (a.y < m.p0.y) a.y = io.MousePos.y + 12.0f;
+  dl->AddRectFilled(a, ImVec2(a.x + ts.x + 6.0f, a.y + ts.y + 4.0f), IM_COL32(40, 46, 52, 225), 2.0f);
+  dl->AddText(sf, fs, ImVec2(a.x + 3.0f, a.y + 2.0f), IM_COL32(245, 245, 240, 255), text.c_str());
+}
+
+}  // namespace
+
+void plot(const PlotSpec& spec, std::span<const Series> series, std::span<const RefLine> refs) {
+  IM_ASSERT(spec.x && spec.y && "a plot needs its two axes");
+  ImDrawList* dl = ImGui::GetWindowDrawList();
+  const float fs = small_size();
+
+  ImVec2 size = spec.size;
+  const ImVec2 avail = ImGui::GetContentRegionAvail();
+  if (size.x <= 0) size.x = avail.x;
+  if (size.y <= 0) size.y = avail.y;
+  size.x = std::max(size.x, 80.0f);
+  size.y = std::max(size.y, 60.0f);
+  const ImVec2 f0 = ImGui::GetCursorScreenPos();
+  const ImVec2 f1(f0.x + size.x, f0.y + size.y);
+
+  ImGui::PushID(spec.id);
+  ImGui::InvisibleButton("##area", size);
+  const bool hovered = ImGui::IsItemHovered();
+  const bool active = ImGui::IsItemActive();
+  ImGui::PopID();
+
+  // layout: title row, y labels on the left, x labels below
+  const float title_h = ImGui::GetFontSize() + 3.0f;
+  const float xlab_h = fs + 5.0f;
+  AxisRange& X = *spec.x;
+  AxisRange& Y = *spec.y;
+
+  // automatic ranges
+  if (X.automatic) fit_x(X, spec, series);
+  if (!(X.hi > X.lo)) X.hi = X.lo + 1.0;
+  const float plot_h_guess = size.y - title_h - xlab_h;
+  const int y_ticks_max = std::max(2, static_cast<int>(plot_h_guess / (fs * 2.2f)));
+  if (Y.automatic) fit_y(Y, X, spec, series, y_ticks_max);
+  if (!(Y.hi > Y.lo)) Y.hi = Y.lo + 1.0;
+
+  // y tick labels decide the left margin
+  const YTicks yt = y_ticks(Y.lo, Y.hi, y_ticks_max);
+  Mapper m;
+  m.p0 = ImVec2(f0.x + yt.width + 8.0f, f0.y + title_h);
+  m.p1 = ImVec2(f1.x - 4.0f, f1.y - xlab_h);
+  if (m.p1.x - m.p0.x < 20.0f || m.p1.y - m.p0.y < 10.0f) return;  // too small to draw
+  m.x0 = X.lo;
+  m.x1 = X.hi;
+  m.y0 = Y.lo;
+  m.y1 = Y.hi;
+
+  // the mouse may zoom or pan: the plot is drawn with the ranges it leaves
+  const bool in_area = handle_mouse(m, spec, hovered, active);
+  m.x0 = X.lo;
+  m.x1 = X.hi;
+  m.y0 = Y.lo;
+  m.y1 = Y.hi;
+  if (spec.geometry) *spec.geometry = PlotGeometry{m.p0, m.p1, m.x0, m.x1, m.y0, m.y1, {0, 0}, {0, 0}};
+
+  draw_axes(dl, spec, m, yt, f0, f1, title_h);
+  dl->PushClipRect(m.p0, m.p1, true);  // reference lines and series, clipped to the plot area
+  draw_ref_lines(dl, m, refs);
+  const std::vector<ImVec2> drawn = draw_series(dl, m, series);
+  const std::vector<double> values = draw_cursor(dl, m, spec, series);
   dl->PopClipRect();
   dl->AddRect(m.p0, m.p1, g_theme.frame, 0.0f, 0, 1.0f);
-
-  // ---- legend (top right), with the values at the cursor when there is one
-  {
-    const float sample_w = 22.0f, pad = 4.0f, row = fs + 2.0f;
-    float label_w = 0.0f, value_w = 0.0f;
-    int rows = 0;
-    std::vector<std::string> vtext(series.size());
-    const int dec = std::max(0, static_cast<int>(std::ceil(-std::log10(ystep) - 1e-9)) + 1 + spec.y_decimals_extra);
-    for (std::size_t k = 0; k < series.size(); ++k) {
-      if (!series[k].in_legend) continue;
-      ++rows;
-      label_w = std::max(label_w, text_size(sf, series[k].label.c_str()).x);
-      if (cursor_here && std::isfinite(values[k])) {
-        vtext[k] = number_text(values[k], dec);
-        value_w = std::max(value_w, text_size(sf, vtext[k].c_str()).x);
-      }
-    }
-    if (rows > 0) {
-      const float w = pad * 3 + sample_w + label_w + (value_w > 0 ? value_w + pad * 2 : 0.0f);
-      const float lh = rows * row + pad;
-      // the corner that hides the fewest drawn points (top right first on a tie)
-      const ImVec2 corners[4] = {ImVec2(m.p1.x - w - 4.0f, m.p0.y + 4.0f), ImVec2(m.p0.x + 4.0f, m.p0.y + 4.0f),
-                                 ImVec2(m.p1.x - w - 4.0f, m.p1.y - lh - 4.0f), ImVec2(m.p0.x + 4.0f, m.p1.y - lh - 4.0f)};
-      int best = 0;
-      std::size_t best_count = SIZE_MAX;
-      for (int k = 0; k < 4; ++k) {
-        const ImVec2 c0(corners[k].x - 3.0f, corners[k].y - 3.0f), c1(corners[k].x + w + 3.0f, corners[k].y + lh + 3.0f);
-        std::size_t count = 0;
-        for (const ImVec2& q : drawn) count += q.x >= c0.x && q.x <= c1.x && q.y >= c0.y && q.y <= c1.y;
-        if (count < best_count) {
-          best_count = count;
-          best = k;
-        }
-      }
-      const ImVec2 a = corners[best];
-      const ImVec2 b(a.x + w, a.y + lh);
-      if (a.x > m.p0.x + 20.0f && b.y < m.p1.y) {
-        if (spec.geometry) {
-          spec.geometry->legend0 = a;
-          spec.geometry->legend1 = b;
-        }
-        dl->AddRectFilled(a, b, g_theme.legend_bg);
-        float y = a.y + pad * 0.5f;
-        for (std::size_t k = 0; k < series.size(); ++k) {
-          if (!series[k].in_legend) continue;
-          legend_sample(dl, ImVec2(a.x + pad, y + row * 0.5f), sample_w, series[k]);
-          dl->AddText(sf, fs, ImVec2(a.x + pad * 2 + sample_w, y), g_theme.text, series[k].label.c_str());
-          if (!vtext[k].empty()) {
-            const float vw = text_size(sf, vtext[k].c_str()).x;
-            dl->AddText(sf, fs, ImVec2(b.x - pad - vw, y), g_theme.title, vtext[k].c_str());
-          }
-          y += row;
-        }
-      }
-    }
-  }
-
-  // ---- readout box in the hovered plot
-  if (in_area) {
-    std::string text;
-    char buf[160];
-    if (spec.nearest_readout) {
-      // nearest point of any series, in screen distance
-      float best = 14.0f * 14.0f;
-      const Series* bs = nullptr;
-      std::size_t bi = 0;
-      for (const auto& s : series)
-        for (std::size_t i = 0; i < s.n; ++i) {
-          const float dx = m.sx(s.x[i] * s.x_factor) - io.MousePos.x;
-          const float dy = m.sy(s.y[i] * s.y_factor) - io.MousePos.y;
-          if (dx * dx + dy * dy < best) {
-            best = dx * dx + dy * dy;
-            bs = &s;
-            bi = i;
-          }
-        }
-      if (bs) {
-        std::snprintf(buf, sizeof buf, "%s\nx %s %s\ny %s %s", bs->label.c_str(),
-                      number_text(bs->x[bi] * bs->x_factor, 3).c_str(), spec.x_unit.c_str(),
-                      number_text(bs->y[bi] * bs->y_factor, 3).c_str(), spec.y_unit.c_str());
-        text = buf;
-        if (bs->tag) {
-          std::snprintf(buf, sizeof buf, "\n%s %s", bs->tag_name, number_text(bs->tag[bi], bs->tag_decimals).c_str());
-          text += buf;
-        }
-        const ImVec2 c(m.sx(bs->x[bi] * bs->x_factor), m.sy(bs->y[bi] * bs->y_factor));
-        dl->AddCircle(c, 6.0f, g_theme.cursor, 14, 1.5f);
-      } else {
-        std::snprintf(buf, sizeof buf, "x %s %s\ny %s %s", number_text(m.ix(io.MousePos.x), 3).c_str(),
-                      spec.x_unit.c_str(), number_text(m.iy(io.MousePos.y), 3).c_str(), spec.y_unit.c_str());
-        text = buf;
-      }
-    } else {
-      std::snprintf(buf, sizeof buf, "%s %s", number_text(m.ix(io.MousePos.x), 2).c_str(), spec.x_unit.c_str());
-      text = buf;
-    }
-    const ImVec2 ts = text_size(sf, text.c_str());
-    ImVec2 a(io.MousePos.x + 10.0f, io.MousePos.y - ts.y - 8.0f);
-    if (a.x + ts.x + 6.0f > m.p1.x) a.x = io.MousePos.x - ts.x - 16.0f;
-    if (a.y < m.p0.y) a.y = io.MousePos.y + 12.0f;
-    dl->AddRectFilled(a, ImVec2(a.x + ts.x + 6.0f, a.y + ts.y + 4.0f), IM_COL32(40, 46, 52, 225), 2.0f);
-    dl->AddText(sf, fs, ImVec2(a.x + 3.0f, a.y + 2.0f), IM_COL32(245, 245, 240, 255), text.c_str());
-  }
+  draw_legend(dl, m, spec, series, values, yt.step, drawn);
+  if (in_area) draw_readout(dl, m, spec, series);
 }
 
 }  // namespace fpui

@@ -376,6 +376,251 @@ std::string fmt1(const char* f, double v) {
   return b;
 }
 
+// ---------------------------------------------------------------------------------------------
+// The parts of SideView::draw
+
+// The texts of the view, drawn after the shapes; a pale box goes behind the bold ones and those
+// asked for, so that captions stay readable over the airplanes. Without a font, none is drawn.
+class Labels {
+ public:
+  explicit Labels(const sf::Font* font) : font_(font) {}
+  void add(const std::string& s, float x, float y, unsigned size, sf::Color col, float align = 0.0f, bool bold = false,
+           bool box = false) {
+    if (!font_) return;
+    sf::Text t(sf::String::fromUtf8(s.begin(), s.end()), *font_, size);
+    t.setFillColor(col);
+    if (bold) t.setStyle(sf::Text::Bold);
+    const sf::FloatRect b = t.getLocalBounds();
+    t.setPosition(std::round(x - align * b.width), std::round(y));
+    texts_.push_back(t);
+    if (box || bold) boxed_.push_back(t.getGlobalBounds());
+  }
+  // Width of a text (a guess without a font).
+  float width(const char* s, unsigned size) const {
+    return font_ ? sf::Text(s, *font_, size).getLocalBounds().width : 30.0f;
+  }
+  void draw(sf::RenderTarget& target) const {
+    sf::VertexArray boxes(sf::Triangles);
+    for (const auto& b : boxed_)
+      fill_convex(boxes, {V2(b.left - 3, b.top - 2), V2(b.left + b.width + 3, b.top - 2),
+                          V2(b.left + b.width + 3, b.top + b.height + 3), V2(b.left - 3, b.top + b.height + 3)},
+                  sf::Color(240, 243, 244, 200));
+    target.draw(boxes);
+    for (const auto& t : texts_) target.draw(t);
+  }
+
+ private:
+  const sf::Font* font_;
+  std::vector<sf::Text> texts_;
+  std::vector<sf::FloatRect> boxed_;
+};
+
+// Where one airplane is drawn: side by side, each in its half; superposed, both in the whole
+// sky (the free one dashed).
+struct Slot {
+  const Pose* pose;
+  const Palette* pal;
+  const char* name;
+  sf::FloatRect r;
+  bool ghost;
+};
+
+std::vector<Slot> slots_of(const sf::FloatRect& sky, const Pose* held, const Pose* free, bool superposed) {
+  std::vector<Slot> slots;
+  if (superposed || !free) {
+    slots.push_back({held, &kHeld, "HELD", sky, false});
+    if (free) slots.push_back({free, &kFree, "FREE", sky, true});
+  } else {
+    const float w = sky.width * 0.5f;
+    slots.push_back({held, &kHeld, "HELD", sf::FloatRect(sky.left, sky.top, w, sky.height), false});
+    slots.push_back({free, &kFree, "FREE", sf::FloatRect(sky.left + w, sky.top, w, sky.height), false});
+  }
+  return slots;
+}
+
+// What every slot shares: the sky, the heights of its bands, the scale of the airplanes.
+struct SkyLayout {
+  sf::FloatRect sky;
+  float label_h = 0, inset_h = 0, plane_h = 0, scale = 0;  // [px], [px per m]
+  bool superposed = false;
+  double exaggeration = 1.0;
+};
+
+// The caption and the readout of one airplane, at the top of its slot.
+void slot_caption(Labels& labels, const Slot& sl, std::size_t k, bool superposed) {
+  const Pose& p = *sl.pose;
+  const float tx = sl.r.left + 8.0f;
+  const float ty = sl.r.top + 4.0f + (superposed ? 34.0f * static_cast<float>(k) : 0.0f);
+  labels.add(std::string(sl.name) + "  " + p.state, tx, ty, 12, sl.pal->line, 0.0f, true);
+  char b[200];
+  if (sl.r.width >= 300.0f || superposed) {
+    std::snprintf(b, sizeof b, "θ %+.1f°   α %+.1f°   δe %+.1f°   tab %+.1f°", fp::units::to_deg(p.theta),
+                  fp::units::to_deg(p.alpha), fp::units::to_deg(p.de), fp::units::to_deg(p.tab));
+    labels.add(b, tx, ty + 16.0f, 11, kInk, 0.0f, false, true);
+  } else {  // narrow: the readout on two lines
+    std::snprintf(b, sizeof b, "θ %+.1f°  α %+.1f°", fp::units::to_deg(p.theta), fp::units::to_deg(p.alpha));
+    labels.add(b, tx, ty + 15.0f, 10, kInk, 0.0f, false, true);
+    std::snprintf(b, sizeof b, "δe %+.1f°  tab %+.1f°", fp::units::to_deg(p.de), fp::units::to_deg(p.tab));
+    labels.add(b, tx, ty + 27.0f, 10, kInk, 0.0f, false, true);
+  }
+}
+
+// The tail magnified at the foot of the slot, in body axes, with the elevator's zero line.
+void tail_inset(sf::VertexArray& va, Labels& labels, const AirplaneDraw& A, const Slot& sl, std::size_t k,
+                const SkyLayout& L) {
+  const fp::Airplane& ap = A.ap;
+  const double ct = A.sz.cs + ap.elevator.chord;
+  const float iw = std::min(0.5f * sl.r.width, 230.0f);
+  const float iscale = static_cast<float>(iw / (1.45 * ct));
+  const float ix = sl.r.left + 10.0f + static_cast<float>(A.sz.cs) * iscale;
+  const float iy = L.sky.top + L.sky.height - L.inset_h * 0.5f - 2.0f;
+  ToScreen T;
+  T.scale = iscale;
+  T.c = V2(ix - static_cast<float>(A.body.bx(ap.elevator.x_hinge)) * iscale,
+           iy - static_cast<float>(ap.elevator.z_hinge) * iscale);
+  draw_tail(va, A, T, *sl.pose, L.exaggeration, *sl.pal, sl.ghost, k == 0 || !L.superposed);
+  if (k == 0 || !L.superposed) {
+    char tb[64];
+    std::snprintf(tb, sizeof tb, "tail ×%.0f", iscale / L.scale);
+    labels.add(tb, sl.r.left + 10.0f, L.sky.top + L.sky.height - L.inset_h - 2.0f, 10, kMuted);
+  }
+}
+
+// One airplane in its slot: the horizon, the airplane at its attitude, the flight-path
+// direction, the gusts at the wing and the tail, the caption, and the tail magnified.
+void draw_slot(sf::VertexArray& va, Labels& labels, const AirplaneDraw& A, const Slot& sl, std::size_t k,
+               const SkyLayout& L) {
+  const fp::Airplane& ap = A.ap;
+  const Pose& p = *sl.pose;
+  // CG placed so that the fuselage is centred
+  const double mid_body = A.body.bx(A.sz.x_nose_aft + 0.5 * A.sz.len);
+  ToScreen S;
+  S.c = V2(sl.r.left + sl.r.width * 0.47f - static_cast<float>(mid_body) * L.scale,
+           sl.r.top + L.label_h + L.plane_h * 0.58f);
+  S.scale = L.scale;
+  S.ct = std::cos(p.theta);
+  S.st = std::sin(p.theta);
+  if (k == 0 || !L.superposed) {
+    // horizon through the CG, and the flight-path direction (relative wind)
+    dashed_line(va, {V2(sl.r.left + 6, S.c.y), V2(sl.r.left + sl.r.width - 6, S.c.y)}, 1.0f,
+                sf::Color(150, 150, 146), 5.0f, 5.0f);
+  }
+  const double gamma = p.theta - p.alpha;
+  const float vlen = static_cast<float>(A.body.bx(A.sz.x_nose_aft)) * L.scale + 26.0f;
+  const V2 vdir(static_cast<float>(std::cos(gamma)), static_cast<float>(-std::sin(gamma)));
+  draw_airplane(va, A, S, p, L.exaggeration, *sl.pal, sl.ghost);
+  arrow(va, S.c + vdir * (vlen - 20.0f), S.c + vdir * vlen, 1.4f, with_alpha(sl.pal->line, 220));
+  labels.add("V", S.c.x + vdir.x * vlen - 4.0f, S.c.y + vdir.y * vlen - 19.0f, 11, sl.pal->line);
+  // gusts at the wing and the tail aerodynamic centres
+  const V2 wing_ac = S(A.body.bx(ap.wing.h_ac * ap.wing.mac), ap.wing.z_ac);
+  const V2 tail_ac = S(A.body.bx(ap.tail.x_ac), ap.tail.z_ac);
+  gust_arrows(va, wing_ac, p.gust_w_wing, p.gust_u_wing, 6.0f);
+  gust_arrows(va, tail_ac, p.gust_w_tail, p.gust_u_tail, 6.0f);
+  if (std::abs(p.gust_w_wing) > 0.05)
+    labels.add(fmt1("%.1f m/s", p.gust_w_wing), wing_ac.x + 6.0f, wing_ac.y + (p.gust_w_wing > 0 ? 22.0f : -36.0f), 11,
+               kGust);
+  if (std::abs(p.gust_w_tail) > 0.05)
+    labels.add(fmt1("%.1f m/s", p.gust_w_tail), tail_ac.x + 6.0f, tail_ac.y + (p.gust_w_tail > 0 ? 22.0f : -36.0f), 11,
+               kGust);
+  slot_caption(labels, sl, k, L.superposed);
+  tail_inset(va, labels, A, sl, k, L);
+}
+
+// Fractions of the MAC to the bar's pixels.
+struct MacScale {
+  double lo = 0.0, hi = 1.0;
+  float x0 = 0, x1 = 1;
+  float operator()(double f) const { return x0 + static_cast<float>((f - lo) / (hi - lo)) * (x1 - x0); }
+};
+
+// The neutral and maneuver points below the bar: labels in one row, spread so that none
+// overlaps, each joined to its mark.
+void point_marks(sf::VertexArray& va, Labels& labels, const MacScale& X, float by, float right, const MacMarks& marks) {
+  struct M {
+    double at;
+    const char* label;
+    sf::Color col;
+  };
+  std::vector<M> ms{{marks.np_fixed, "Nfix", kHeld.line},
+                    {marks.np_free, "Nfree", kFree.line},
+                    {marks.np_apparent, "Napp", kWarn},
+                    {marks.mp_fixed, "Mfix", kHeld.surface},
+                    {marks.mp_free, "Mfree", kFree.surface}};
+  ms.erase(std::remove_if(ms.begin(), ms.end(), [](const M& m) { return !std::isfinite(m.at); }), ms.end());
+  std::sort(ms.begin(), ms.end(), [](const M& a, const M& b) { return a.at < b.at; });
+  std::vector<float> lw(ms.size()), lx(ms.size());
+  float end = -1e9f;
+  for (std::size_t i = 0; i < ms.size(); ++i) {
+    lw[i] = labels.width(ms[i].label, 10);
+    lx[i] = std::max(X(ms[i].at) - 0.5f * lw[i], end + 6.0f);
+    end = lx[i] + lw[i];
+  }
+  const float over = end - right;
+  if (over > 0)
+    for (auto& x : lx) x -= over;
+  for (std::size_t i = 0; i < ms.size(); ++i) {
+    const M& m = ms[i];
+    if (!std::isfinite(m.at)) continue;
+    const float x = X(m.at);
+    fill_convex(va, {V2(x, by + 5), V2(x + 4, by + 12), V2(x - 4, by + 12)}, m.col);
+    const float cx = lx[i] + 0.5f * lw[i];
+    thick_line(va, {V2(x, by + 12), V2(cx, by + 19)}, 1.0f, with_alpha(m.col, 150));
+    labels.add(m.label, lx[i], by + 19, 10, m.col);
+  }
+}
+
+// The MAC bar: the chord from its leading to its trailing edge, the CG envelope on it, the CG
+// above it, the neutral and maneuver points below it.
+void mac_bar(sf::VertexArray& va, Labels& labels, const sf::FloatRect& area, float strip_h, const MacMarks& marks) {
+  const float y0 = area.top + area.height - strip_h;
+  thick_line(va, {V2(area.left, y0), V2(area.left + area.width, y0)}, 1.0f, sf::Color(200, 196, 186));
+  MacScale X;
+  auto widen = [&](double v) {
+    if (std::isfinite(v)) {
+      X.lo = std::min(X.lo, v - 0.03);
+      X.hi = std::max(X.hi, v + 0.03);
+    }
+  };
+  widen(marks.cg);
+  if (marks.have_points)
+    for (double v : {marks.np_fixed, marks.np_free, marks.np_apparent, marks.mp_fixed, marks.mp_free}) widen(v);
+  X.x0 = area.left + 92.0f;
+  X.x1 = area.left + area.width - 30.0f;
+  const float by = y0 + 26.0f;
+  labels.add("MAC", area.left + 10.0f, by - 9.0f, 12, kInk, 0.0f, true);
+  fill_convex(va, {V2(area.left + 10, by + 12), V2(area.left + 20, by + 12), V2(area.left + 20, by + 18),
+                   V2(area.left + 10, by + 18)},
+              sf::Color(160, 196, 170));
+  labels.add("envelope", area.left + 24.0f, by + 8.0f, 10, sf::Color(60, 110, 76));
+  fill_convex(va, {V2(X(0), by - 4), V2(X(1), by - 4), V2(X(1), by + 4), V2(X(0), by + 4)}, sf::Color(214, 211, 202));
+  fill_convex(va,
+              {V2(X(marks.envelope_forward), by - 4), V2(X(marks.envelope_aft), by - 4),
+               V2(X(marks.envelope_aft), by + 4), V2(X(marks.envelope_forward), by + 4)},
+              sf::Color(160, 196, 170));
+  thick_line(va, {V2(X(0), by - 4), V2(X(1), by - 4), V2(X(1), by + 4), V2(X(0), by + 4)}, 1.0f, kMuted, true);
+  for (int i = 1; i < 10; ++i) {
+    const float x = X(i / 10.0);
+    thick_line(va, {V2(x, by - 4), V2(x, by + (i == 5 ? 1.0f : -1.0f))}, 1.0f, kMuted);
+  }
+  labels.add("LE 0", X(0) - 4.0f, by - 7.0f, 10, kMuted, 1.0f);
+  labels.add("1 TE", X(1) + 4.0f, by - 7.0f, 10, kMuted);
+  // CG above the bar
+  {
+    const float x = X(marks.cg);
+    fill_convex(va, {V2(x, by - 5), V2(x - 5, by - 14), V2(x + 5, by - 14)}, kCg);
+    char b[48];
+    std::snprintf(b, sizeof b, "CG %.3f", marks.cg);
+    labels.add(b, x + 7, by - 25, 11, kCg, 0.0f, true);
+  }
+  if (marks.have_points) {
+    point_marks(va, labels, X, by, area.left + area.width - 6.0f, marks);
+    if (!marks.note.empty()) labels.add(marks.note, area.left + 10.0f, by + 22.0f, 10, kMuted);
+  } else {
+    labels.add("neutral points: " + (marks.missing.empty() ? std::string("not available in this build") : marks.missing),
+               X(0.0), by + 14, 11, kWarn);
+  }
+}
+
 }  // namespace
 
 std::string find_font_file(bool bold) {
@@ -402,19 +647,7 @@ void SideView::draw(sf::RenderTarget& target, const sf::FloatRect& area, const f
   target.setView(view);
 
   sf::VertexArray va(sf::Triangles);
-  std::vector<sf::Text> texts;
-  std::vector<sf::FloatRect> boxed;  // texts that get a pale box behind them
-  auto text = [&](const std::string& s, float x, float y, unsigned size, sf::Color col, float align = 0.0f,
-                  bool bold = false, bool box = false) {
-    if (!font_ok_) return;
-    sf::Text t(sf::String::fromUtf8(s.begin(), s.end()), font_, size);
-    t.setFillColor(col);
-    if (bold) t.setStyle(sf::Text::Bold);
-    const sf::FloatRect b = t.getLocalBounds();
-    t.setPosition(std::round(x - align * b.width), std::round(y));
-    texts.push_back(t);
-    if (box || bold) boxed.push_back(t.getGlobalBounds());
-  };
+  Labels labels(font_ok_ ? &font_ : nullptr);
 
   // no fill of the whole area (every filled pixel costs a software renderer): a thin frame
   thick_line(va, {V2(area.left, area.top), V2(area.left + area.width, area.top), V2(area.left + area.width, area.top + area.height),
@@ -422,194 +655,26 @@ void SideView::draw(sf::RenderTarget& target, const sf::FloatRect& area, const f
              1.0f, sf::Color(214, 210, 200), true);
 
   const float strip_h = 64.0f;
-  const sf::FloatRect sky(area.left, area.top, area.width, area.height - strip_h);
-  AirplaneDraw A{ap, Body{ap.mass.h_cg * ap.wing.mac}, sizes_of(ap)};
-
-  struct Slot {
-    const Pose* pose;
-    const Palette* pal;
-    const char* name;
-    sf::FloatRect r;
-    bool ghost;
-  };
-  std::vector<Slot> slots;
-  if (superposed || !free) {
-    slots.push_back({held, &kHeld, "HELD", sky, false});
-    if (free) slots.push_back({free, &kFree, "FREE", sky, true});
-  } else {
-    const float w = sky.width * 0.5f;
-    slots.push_back({held, &kHeld, "HELD", sf::FloatRect(sky.left, sky.top, w, sky.height), false});
-    slots.push_back({free, &kFree, "FREE", sf::FloatRect(sky.left + w, sky.top, w, sky.height), false});
-  }
-
+  SkyLayout L;
+  L.sky = sf::FloatRect(area.left, area.top, area.width, area.height - strip_h);
+  L.superposed = superposed;
+  L.exaggeration = exaggeration;
+  const AirplaneDraw A{ap, Body{ap.mass.h_cg * ap.wing.mac}, sizes_of(ap)};
+  const std::vector<Slot> slots = slots_of(L.sky, held, free, superposed);
   const float region_w = slots.back().r.width;
-  const float label_h = superposed && free ? 68.0f : slots.back().r.width < 300.0f ? 42.0f : 36.0f, inset_h = 50.0f;
-  const float plane_h = sky.height - label_h - inset_h;
-  const float scale = static_cast<float>(std::min(0.74 * region_w / A.sz.len, plane_h / (0.42 * A.sz.len)));
-  for (std::size_t k = 0; k < slots.size(); ++k) {
-    const Slot& sl = slots[k];
-    if (!sl.pose) continue;
-    const Pose& p = *sl.pose;
-    // CG placed so that the fuselage is centred
-    const double mid_body = A.body.bx(A.sz.x_nose_aft + 0.5 * A.sz.len);
-    ToScreen S;
-    S.c = V2(sl.r.left + sl.r.width * 0.47f - static_cast<float>(mid_body) * scale,
-             sl.r.top + label_h + plane_h * 0.58f);
-    S.scale = scale;
-    S.ct = std::cos(p.theta);
-    S.st = std::sin(p.theta);
-    if (k == 0 || !superposed) {
-      // horizon through the CG, and the flight-path direction (relative wind)
-      dashed_line(va, {V2(sl.r.left + 6, S.c.y), V2(sl.r.left + sl.r.width - 6, S.c.y)}, 1.0f,
-                  sf::Color(150, 150, 146), 5.0f, 5.0f);
-    }
-    const double gamma = p.theta - p.alpha;
-    const float vlen = static_cast<float>(A.body.bx(A.sz.x_nose_aft)) * scale + 26.0f;
-    const V2 vdir(static_cast<float>(std::cos(gamma)), static_cast<float>(-std::sin(gamma)));
-    draw_airplane(va, A, S, p, exaggeration, *sl.pal, sl.ghost);
-    arrow(va, S.c + vdir * (vlen - 20.0f), S.c + vdir * vlen, 1.4f, with_alpha(sl.pal->line, 220));
-    text("V", S.c.x + vdir.x * vlen - 4.0f, S.c.y + vdir.y * vlen - 19.0f, 11, sl.pal->line);
-    // gusts at the wing and the tail aerodynamic centres
-    const V2 wing_ac = S(A.body.bx(ap.wing.h_ac * ap.wing.mac), ap.wing.z_ac);
-    const V2 tail_ac = S(A.body.bx(ap.tail.x_ac), ap.tail.z_ac);
-    gust_arrows(va, wing_ac, p.gust_w_wing, p.gust_u_wing, 6.0f);
-    gust_arrows(va, tail_ac, p.gust_w_tail, p.gust_u_tail, 6.0f);
-    if (std::abs(p.gust_w_wing) > 0.05)
-      text(fmt1("%.1f m/s", p.gust_w_wing), wing_ac.x + 6.0f, wing_ac.y + (p.gust_w_wing > 0 ? 22.0f : -36.0f), 11,
-           kGust);
-    if (std::abs(p.gust_w_tail) > 0.05)
-      text(fmt1("%.1f m/s", p.gust_w_tail), tail_ac.x + 6.0f, tail_ac.y + (p.gust_w_tail > 0 ? 22.0f : -36.0f), 11,
-           kGust);
-    // caption and readout
-    const float tx = sl.r.left + 8.0f;
-    const float ty = sl.r.top + 4.0f + (superposed ? 34.0f * static_cast<float>(k) : 0.0f);
-    text(std::string(sl.name) + "  " + p.state, tx, ty, 12, sl.pal->line, 0.0f, true);
-    char b[200];
-    if (sl.r.width >= 300.0f || superposed) {
-      std::snprintf(b, sizeof b, "θ %+.1f°   α %+.1f°   δe %+.1f°   tab %+.1f°", fp::units::to_deg(p.theta),
-                    fp::units::to_deg(p.alpha), fp::units::to_deg(p.de), fp::units::to_deg(p.tab));
-      text(b, tx, ty + 16.0f, 11, kInk, 0.0f, false, true);
-    } else {  // narrow: the readout on two lines
-      std::snprintf(b, sizeof b, "θ %+.1f°  α %+.1f°", fp::units::to_deg(p.theta), fp::units::to_deg(p.alpha));
-      text(b, tx, ty + 15.0f, 10, kInk, 0.0f, false, true);
-      std::snprintf(b, sizeof b, "δe %+.1f°  tab %+.1f°", fp::units::to_deg(p.de), fp::units::to_deg(p.tab));
-      text(b, tx, ty + 27.0f, 10, kInk, 0.0f, false, true);
-    }
-    // the tail magnified, in body axes, with the elevator's zero line
-    {
-      const double ct = A.sz.cs + ap.elevator.chord;
-      const float iw = std::min(0.5f * sl.r.width, 230.0f);
-      const float iscale = static_cast<float>(iw / (1.45 * ct));
-      const float ix = sl.r.left + 10.0f + static_cast<float>(A.sz.cs) * iscale;
-      const float iy = sky.top + sky.height - inset_h * 0.5f - 2.0f + (superposed ? 0.0f : 0.0f);
-      ToScreen T;
-      T.scale = iscale;
-      T.c = V2(ix - static_cast<float>(A.body.bx(ap.elevator.x_hinge)) * iscale,
-               iy - static_cast<float>(ap.elevator.z_hinge) * iscale);
-      draw_tail(va, A, T, p, exaggeration, *sl.pal, sl.ghost, k == 0 || !superposed);
-      if (k == 0 || !superposed) {
-        char tb[64];
-        std::snprintf(tb, sizeof tb, "tail ×%.0f", iscale / scale);
-        text(tb, sl.r.left + 10.0f, sky.top + sky.height - inset_h - 2.0f, 10, kMuted);
-      }
-    }
-  }
+  L.label_h = superposed && free ? 68.0f : slots.back().r.width < 300.0f ? 42.0f : 36.0f;
+  L.inset_h = 50.0f;
+  L.plane_h = L.sky.height - L.label_h - L.inset_h;
+  L.scale = static_cast<float>(std::min(0.74 * region_w / A.sz.len, L.plane_h / (0.42 * A.sz.len)));
+  for (std::size_t k = 0; k < slots.size(); ++k)
+    if (slots[k].pose) draw_slot(va, labels, A, slots[k], k, L);
   char ex[80];
   std::snprintf(ex, sizeof ex, "deflections drawn ×%.0f, attitude true", exaggeration);
-  text(ex, sky.left + sky.width - 8.0f, sky.top + sky.height - 16.0f, 10, kMuted, 1.0f);
-
-  // ---- MAC bar: the chord from its leading to its trailing edge, the CG envelope on it, the
-  // CG above it, the neutral and maneuver points below it (labels staggered so none overlap)
-  {
-    const float y0 = area.top + area.height - strip_h;
-    thick_line(va, {V2(area.left, y0), V2(area.left + area.width, y0)}, 1.0f, sf::Color(200, 196, 186));
-    double lo = 0.0, hi = 1.0;
-    auto widen = [&](double v) {
-      if (std::isfinite(v)) {
-        lo = std::min(lo, v - 0.03);
-        hi = std::max(hi, v + 0.03);
-      }
-    };
-    widen(marks.cg);
-    if (marks.have_points)
-      for (double v : {marks.np_fixed, marks.np_free, marks.np_apparent, marks.mp_fixed, marks.mp_free}) widen(v);
-    const float bx0 = area.left + 92.0f, bx1 = area.left + area.width - 30.0f;
-    const float by = y0 + 26.0f;
-    auto X = [&](double f) { return bx0 + static_cast<float>((f - lo) / (hi - lo)) * (bx1 - bx0); };
-    text("MAC", area.left + 10.0f, by - 9.0f, 12, kInk, 0.0f, true);
-    fill_convex(va, {V2(area.left + 10, by + 12), V2(area.left + 20, by + 12), V2(area.left + 20, by + 18),
-                     V2(area.left + 10, by + 18)},
-                sf::Color(160, 196, 170));
-    text("envelope", area.left + 24.0f, by + 8.0f, 10, sf::Color(60, 110, 76));
-    fill_convex(va, {V2(X(0), by - 4), V2(X(1), by - 4), V2(X(1), by + 4), V2(X(0), by + 4)}, sf::Color(214, 211, 202));
-    fill_convex(va,
-                {V2(X(marks.envelope_forward), by - 4), V2(X(marks.envelope_aft), by - 4),
-                 V2(X(marks.envelope_aft), by + 4), V2(X(marks.envelope_forward), by + 4)},
-                sf::Color(160, 196, 170));
-    thick_line(va, {V2(X(0), by - 4), V2(X(1), by - 4), V2(X(1), by + 4), V2(X(0), by + 4)}, 1.0f, kMuted, true);
-    for (int i = 1; i < 10; ++i) {
-      const float x = X(i / 10.0);
-      thick_line(va, {V2(x, by - 4), V2(x, by + (i == 5 ? 1.0f : -1.0f))}, 1.0f, kMuted);
-    }
-    text("LE 0", X(0) - 4.0f, by - 7.0f, 10, kMuted, 1.0f);
-    text("1 TE", X(1) + 4.0f, by - 7.0f, 10, kMuted);
-    // CG above the bar
-    {
-      const float x = X(marks.cg);
-      fill_convex(va, {V2(x, by - 5), V2(x - 5, by - 14), V2(x + 5, by - 14)}, kCg);
-      char b[48];
-      std::snprintf(b, sizeof b, "CG %.3f", marks.cg);
-      text(b, x + 7, by - 25, 11, kCg, 0.0f, true);
-    }
-    if (marks.have_points) {
-      struct M {
-        double at;
-        const char* label;
-        sf::Color col;
-      };
-      std::vector<M> ms{{marks.np_fixed, "Nfix", kHeld.line},
-                        {marks.np_free, "Nfree", kFree.line},
-                        {marks.np_apparent, "Napp", kWarn},
-                        {marks.mp_fixed, "Mfix", kHeld.surface},
-                        {marks.mp_free, "Mfree", kFree.surface}};
-      ms.erase(std::remove_if(ms.begin(), ms.end(), [](const M& m) { return !std::isfinite(m.at); }), ms.end());
-      std::sort(ms.begin(), ms.end(), [](const M& a, const M& b) { return a.at < b.at; });
-      // labels in one row under the bar, spread so that none overlaps, each joined to its mark
-      std::vector<float> lw(ms.size()), lx(ms.size());
-      float end = -1e9f;
-      for (std::size_t i = 0; i < ms.size(); ++i) {
-        lw[i] = font_ok_ ? sf::Text(ms[i].label, font_, 10).getLocalBounds().width : 30.0f;
-        lx[i] = std::max(X(ms[i].at) - 0.5f * lw[i], end + 6.0f);
-        end = lx[i] + lw[i];
-      }
-      const float over = end - (area.left + area.width - 6.0f);
-      if (over > 0)
-        for (auto& x : lx) x -= over;
-      for (std::size_t i = 0; i < ms.size(); ++i) {
-        const M& m = ms[i];
-        if (!std::isfinite(m.at)) continue;
-        const float x = X(m.at);
-        fill_convex(va, {V2(x, by + 5), V2(x + 4, by + 12), V2(x - 4, by + 12)}, m.col);
-        const float cx = lx[i] + 0.5f * lw[i];
-        thick_line(va, {V2(x, by + 12), V2(cx, by + 19)}, 1.0f, with_alpha(m.col, 150));
-        text(m.label, lx[i], by + 19, 10, m.col);
-      }
-      if (!marks.note.empty()) text(marks.note, area.left + 10.0f, by + 22.0f, 10, kMuted);
-    } else {
-      text("neutral points: " + (marks.missing.empty() ? std::string("not available in this build") : marks.missing),
-           X(0.0), by + 14, 11, kWarn);
-    }
-  }
+  labels.add(ex, L.sky.left + L.sky.width - 8.0f, L.sky.top + L.sky.height - 16.0f, 10, kMuted, 1.0f);
+  mac_bar(va, labels, area, strip_h, marks);
 
   target.draw(va);
-  // captions stay readable over the airplanes: a pale box behind each bold one
-  sf::VertexArray boxes(sf::Triangles);
-  for (const auto& b : boxed)
-    fill_convex(boxes, {V2(b.left - 3, b.top - 2), V2(b.left + b.width + 3, b.top - 2),
-                        V2(b.left + b.width + 3, b.top + b.height + 3), V2(b.left - 3, b.top + b.height + 3)},
-                sf::Color(240, 243, 244, 200));
-  target.draw(boxes);
-  for (const auto& t : texts) target.draw(t);
+  labels.draw(target);
   target.setView(target.getDefaultView());
 }
 
