@@ -21,6 +21,7 @@
 
 #include "scenario/key_info.hpp"
 #include "util/caution.hpp"
+#include "ui/options.hpp"
 #include "ui/plot.hpp"
 #include "ui/script.hpp"
 #include "ui/session.hpp"
@@ -28,18 +29,6 @@
 #include "ui/theme.hpp"
 
 namespace fpui {
-
-struct Options {
-  std::string scenario;         // file to open at start ("" = none)
-  int frames = -1;              // >= 0: run this many frames, then exit (headless)
-  std::string screenshot;       // PNG written after the last frame
-  std::string script;           // action script
-  std::string frame_log;        // per-frame times [ms]
-  std::string csv_dir;          // the run's CSVs written at exit
-  std::string layout;           // where the plots were drawn, for the tests
-  unsigned width = 1280, height = 800;
-  bool fixed_step() const { return frames >= 0 || !script.empty(); }
-};
 
 inline constexpr const char* kCautions = fp::kCaution;
 
