@@ -192,25 +192,54 @@ Ticks nice_ticks(double lo, double hi, int target) {
   return t;
 }
 
-std::string render(const Plot& p) {
-  // legend entries
-  struct Entry {
-    std::string label;
-    Style style;
-    bool line;
-    Marker marker;
-    bool band;
-  };
-  std::vector<Entry> legend;
+namespace {
+
+// Append "<cmd>x y" to an SVG path (piece by piece: gcc 12's -Wrestrict misreads a chain of
+// string + here).
+void path_point(std::string& d, const char* cmd, double x, double y) {
+  d += cmd;
+  d += f1(x);
+  d += ' ';
+  d += f1(y);
+}
+
+// One legend entry of a plot.
+struct LegendEntry {
+  std::string label;
+  Style style;
+  bool line;
+  Marker marker;
+  bool band;
+};
+
+// The plot area in pixels, the data ranges shown and their ticks.
+struct Frame {
+  double W = 0, H = 0, L = 0, R = 0, T = 0, B = 0;  // size and plot area [px]
+  double x0 = 0, x1 = 1, y0 = 0, y1 = 1;            // data ranges shown
+  Ticks tx, ty;
+  double sx(double x) const { return L + (x - x0) / (x1 - x0) * (R - L); }
+  double sy(double y) const { return B - (y - y0) / (y1 - y0) * (B - T); }
+};
+
+std::vector<LegendEntry> legend_of(const Plot& p) {
+  std::vector<LegendEntry> legend;
   for (const auto& b : p.bands)
     if (!b.label.empty()) legend.push_back({b.label, Style::second, false, Marker::none, true});
   for (const auto& s : p.series)
     if (!s.label.empty()) legend.push_back({s.label, s.style, s.line, s.marker, false});
+  return legend;
+}
 
-  const double W = p.width, H = p.height;
-  const double L = 66, R = W - 20;
-  const double T = legend.empty() ? 30 : 50;
-  const double B = H - 42;
+// The plot area and the ranges: x from everything drawn, y from what lies inside the x range.
+Frame frame_of(const Plot& p, bool has_legend) {
+  Frame f;
+  f.W = p.width;
+  f.H = p.height;
+  f.L = 66;
+  f.R = f.W - 20;
+  f.T = has_legend ? 50 : 30;
+  f.B = f.H - 42;
+  const double L = f.L, R = f.R, T = f.T, B = f.B;
 
   Range rx;
   for (const auto& s : p.series)
@@ -220,8 +249,11 @@ std::string render(const Plot& p) {
     for (double x : b.x) rx.add(x);
   for (const auto& r : p.refs)
     if (r.vertical) rx.add(r.at);
-  double x0, x1, y0, y1;
-  const Ticks tx = resolve(p.x, rx, x0, x1, std::max(3, static_cast<int>((R - L) / 80)));
+  double& x0 = f.x0;
+  double& x1 = f.x1;
+  double& y0 = f.y0;
+  double& y1 = f.y1;
+  f.tx = resolve(p.x, rx, x0, x1, std::max(3, static_cast<int>((R - L) / 80)));
   // the y range from what lies inside the x range
   auto inside = [&](double x) { return x >= x0 - 1e-12 * std::abs(x0) && x <= x1 + 1e-12 * std::abs(x1); };
   Range ry;
@@ -236,21 +268,17 @@ std::string render(const Plot& p) {
       }
   for (const auto& r : p.refs)
     if (!r.vertical) ry.add(r.at);
-  const Ticks ty = resolve(p.y, ry, y0, y1, std::max(3, static_cast<int>((B - T) / 45)));
-  auto sx = [&](double x) { return L + (x - x0) / (x1 - x0) * (R - L); };
-  auto sy = [&](double y) { return B - (y - y0) / (y1 - y0) * (B - T); };
-  const std::string clip = "clip-" + p.id;
+  f.ty = resolve(p.y, ry, y0, y1, std::max(3, static_cast<int>((B - T) / 45)));
+  return f;
+}
 
-  std::string o;
-  o += "<svg class=\"plot\" id=\"" + escape(p.id) + "\" viewBox=\"0 0 " + f1(W) +
-       " " + f1(H) + "\" width=\"" + f1(W) + "\" height=\"" + f1(H) + "\" role=\"img\">\n";
-  o += "<title>" + escape(p.description.empty() ? p.title : p.description) + "</title>\n";
-  o += "<defs><clipPath id=\"" + escape(clip) + "\"><rect x=\"" + f1(L) + "\" y=\"" + f1(T) + "\" width=\"" +
-       f1(R - L) + "\" height=\"" + f1(B - T) + "\"/></clipPath></defs>\n";
-  o += "<rect x=\"0\" y=\"0\" width=\"" + f1(W) + "\" height=\"" + f1(H) + "\" fill=\"#fff\"/>\n";
-  o += text(8, 17, p.title, "start", 13, " font-weight=\"bold\" fill=\"#111\"");
-
-  // legend
+void draw_legend(std::string& o, const Frame& f, const std::vector<LegendEntry>& legend) {
+  [[maybe_unused]] const double W = f.W, H = f.H, L = f.L, R = f.R, T = f.T, B = f.B;
+  [[maybe_unused]] const double x0 = f.x0, x1 = f.x1, y0 = f.y0, y1 = f.y1;
+  [[maybe_unused]] const Ticks& tx = f.tx;
+  [[maybe_unused]] const Ticks& ty = f.ty;
+  [[maybe_unused]] auto sx = [&](double x) { return f.sx(x); };
+  [[maybe_unused]] auto sy = [&](double y) { return f.sy(y); };
   if (!legend.empty()) {
     double lx = L;
     const double ly = 36;
@@ -270,7 +298,16 @@ std::string render(const Plot& p) {
     }
   }
 
-  // spans, grid, zero line
+}
+
+// Shaded spans, the grid, the zero lines and the span labels.
+void draw_backdrop(std::string& o, const Plot& p, const Frame& f) {
+  [[maybe_unused]] const double W = f.W, H = f.H, L = f.L, R = f.R, T = f.T, B = f.B;
+  [[maybe_unused]] const double x0 = f.x0, x1 = f.x1, y0 = f.y0, y1 = f.y1;
+  [[maybe_unused]] const Ticks& tx = f.tx;
+  [[maybe_unused]] const Ticks& ty = f.ty;
+  [[maybe_unused]] auto sx = [&](double x) { return f.sx(x); };
+  [[maybe_unused]] auto sy = [&](double y) { return f.sy(y); };
   for (const auto& s : p.spans) {
     const std::string fill = s.dark ? "#e2e5ea" : "#eef1f5";
     if (s.of_y) {
@@ -298,7 +335,16 @@ std::string render(const Plot& p) {
       o += halo_text(xm, ym, s.label, s.of_y ? "end" : "middle");
     }
 
-  // data, clipped to the plot area
+}
+
+// Bands and series, clipped to the plot area.
+void draw_data(std::string& o, const Plot& p, const Frame& f, const std::string& clip) {
+  [[maybe_unused]] const double W = f.W, H = f.H, L = f.L, R = f.R, T = f.T, B = f.B;
+  [[maybe_unused]] const double x0 = f.x0, x1 = f.x1, y0 = f.y0, y1 = f.y1;
+  [[maybe_unused]] const Ticks& tx = f.tx;
+  [[maybe_unused]] const Ticks& ty = f.ty;
+  [[maybe_unused]] auto sx = [&](double x) { return f.sx(x); };
+  [[maybe_unused]] auto sy = [&](double y) { return f.sy(y); };
   o += "<g clip-path=\"url(#" + escape(clip) + ")\">\n";
   for (const auto& b : p.bands) {
     std::string d;
@@ -306,8 +352,8 @@ std::string render(const Plot& p) {
     auto flush = [&] {
       if (up.size() >= 2) {
         d += "M";
-        for (std::size_t i = 0; i < up.size(); ++i) d += (i ? "L" : "") + f1(up[i].first) + " " + f1(up[i].second);
-        for (std::size_t i = dn.size(); i-- > 0;) d += "L" + f1(dn[i].first) + " " + f1(dn[i].second);
+        for (std::size_t i = 0; i < up.size(); ++i) path_point(d, i ? "L" : "", up[i].first, up[i].second);
+        for (std::size_t i = dn.size(); i-- > 0;) path_point(d, "L", dn[i].first, dn[i].second);
         d += "Z";
       }
       up.clear();
@@ -334,7 +380,7 @@ std::string render(const Plot& p) {
     auto flush = [&] {
       const auto pts = decimate(run);
       if (pts.size() >= 2) {
-        for (std::size_t i = 0; i < pts.size(); ++i) d += (i ? "L" : "M") + f1(pts[i].first) + " " + f1(pts[i].second);
+        for (std::size_t i = 0; i < pts.size(); ++i) path_point(d, i ? "L" : "M", pts[i].first, pts[i].second);
       }
       run.clear();
     };
@@ -362,7 +408,16 @@ std::string render(const Plot& p) {
   }
   o += "</g>\n";
 
-  // reference lines, labels staggered so that neighbours do not overlap
+}
+
+// Reference lines (labels staggered so that neighbours do not overlap) and notes.
+void draw_refs(std::string& o, const Plot& p, const Frame& f) {
+  [[maybe_unused]] const double W = f.W, H = f.H, L = f.L, R = f.R, T = f.T, B = f.B;
+  [[maybe_unused]] const double x0 = f.x0, x1 = f.x1, y0 = f.y0, y1 = f.y1;
+  [[maybe_unused]] const Ticks& tx = f.tx;
+  [[maybe_unused]] const Ticks& ty = f.ty;
+  [[maybe_unused]] auto sx = [&](double x) { return f.sx(x); };
+  [[maybe_unused]] auto sy = [&](double y) { return f.sy(y); };
   std::vector<const RefLine*> vref;
   for (const auto& r : p.refs) {
     if (r.vertical) {
@@ -394,24 +449,59 @@ std::string render(const Plot& p) {
     o += halo_text(n.left ? X - 6 : X + 6, Y - 6, n.text, n.left ? "end" : "start");
   }
 
-  // frame, ticks, labels
+}
+
+// The frame, the ticks with their numbers, the axis titles.
+void draw_axes(std::string& o, const Plot& p, const Frame& f) {
+  [[maybe_unused]] const double W = f.W, H = f.H, L = f.L, R = f.R, T = f.T, B = f.B;
+  [[maybe_unused]] const double x0 = f.x0, x1 = f.x1, y0 = f.y0, y1 = f.y1;
+  [[maybe_unused]] const Ticks& tx = f.tx;
+  [[maybe_unused]] const Ticks& ty = f.ty;
+  [[maybe_unused]] auto sx = [&](double x) { return f.sx(x); };
+  [[maybe_unused]] auto sy = [&](double y) { return f.sy(y); };
   o += "<rect x=\"" + f1(L) + "\" y=\"" + f1(T) + "\" width=\"" + f1(R - L) + "\" height=\"" + f1(B - T) +
        "\" fill=\"none\" stroke=\"#444\" stroke-width=\"1\"/>\n";
   std::string ticks;
   for (double v : tx.values) {
     const double X = sx(v / p.x.pct);
-    ticks += "M" + f1(X) + " " + f1(B) + "v5";
+    path_point(ticks, "M", X, B);
+    ticks += "v5";
     o += text(X, B + 17, number(v, tx.decimals), "middle", 11, " fill=\"#222\"");
   }
   for (double v : ty.values) {
     const double Y = sy(v / p.y.pct);
-    ticks += "M" + f1(L) + " " + f1(Y) + "h-5";
+    path_point(ticks, "M", L, Y);
+    ticks += "h-5";
     o += text(L - 8, Y + 4, number(v, ty.decimals), "end", 11, " fill=\"#222\"");
   }
   o += "<path d=\"" + ticks + "\" stroke=\"#444\" stroke-width=\"1\"/>\n";
   o += text(0.5 * (L + R), H - 8, axis_title(p.x), "middle", 12, " fill=\"#111\"");
   o += "<text transform=\"translate(15 " + f1(0.5 * (T + B)) + ") rotate(-90)\" " + kFont +
        " font-size=\"12\" text-anchor=\"middle\" fill=\"#111\">" + escape(axis_title(p.y)) + "</text>\n";
+}
+
+}  // namespace
+
+std::string render(const Plot& p) {
+  const std::vector<LegendEntry> legend = legend_of(p);
+  const Frame f = frame_of(p, !legend.empty());
+  const double W = f.W, H = f.H, L = f.L, R = f.R, T = f.T, B = f.B;
+  const std::string clip = "clip-" + p.id;
+
+  std::string o;
+  o += "<svg class=\"plot\" id=\"" + escape(p.id) + "\" viewBox=\"0 0 " + f1(W) +
+       " " + f1(H) + "\" width=\"" + f1(W) + "\" height=\"" + f1(H) + "\" role=\"img\">\n";
+  o += "<title>" + escape(p.description.empty() ? p.title : p.description) + "</title>\n";
+  o += "<defs><clipPath id=\"" + escape(clip) + "\"><rect x=\"" + f1(L) + "\" y=\"" + f1(T) + "\" width=\"" +
+       f1(R - L) + "\" height=\"" + f1(B - T) + "\"/></clipPath></defs>\n";
+  o += "<rect x=\"0\" y=\"0\" width=\"" + f1(W) + "\" height=\"" + f1(H) + "\" fill=\"#fff\"/>\n";
+  o += text(8, 17, p.title, "start", 13, " font-weight=\"bold\" fill=\"#111\"");
+
+  if (!legend.empty()) draw_legend(o, f, legend);
+  draw_backdrop(o, p, f);
+  draw_data(o, p, f, clip);
+  draw_refs(o, p, f);
+  draw_axes(o, p, f);
   o += "</svg>\n";
   return o;
 }
@@ -515,7 +605,8 @@ std::string render(const RowChart& c) {
   std::string ticks;
   for (double v : tx.values) {
     const double X = sx(v / c.x.pct);
-    ticks += "M" + f1(X) + " " + f1(B) + "v5";
+    path_point(ticks, "M", X, B);
+    ticks += "v5";
     o += text(X, B + 17, number(v, tx.decimals), "middle", 11, " fill=\"#222\"");
   }
   o += "<path d=\"" + ticks + "\" stroke=\"#444\" stroke-width=\"1\"/>\n";
