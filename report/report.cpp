@@ -462,6 +462,7 @@ ReportData make_report(const ReportOptions& o) {
       r.departure_time = r.peak_dn = r.peak_dalpha = nan_;
       if (!p.ok) {
         r.failure = p.reason;  // the sweep point's own failure (trim, scenario)
+        r.np_free = r.max_real_free = nan_;  // not computed: no zeros in the bands
         return;
       }
       try {

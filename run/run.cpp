@@ -478,11 +478,19 @@ void check_trim_within_bounds(const Scenario& s, const Plant& p, const GustField
     if (departure_excess(k, b, f) <= 0.0) continue;
     std::string key = bound_key(k, b);
     if (k == 6 && f.n < b.n_min) key = "run.load_factor_min";
+    // where the bound came from: a file's line, an option (--set, --vary), or the default
+    ScenarioError e{s.path, 0, 0, key, "the trimmed start is already beyond this departure bound: " +
+                                           departure_reason(k, b, f) + "; the bound must leave room for the trim"};
     const auto o = s.origins.find(key);
-    const bool known = o != s.origins.end() && !o->second.file.empty();
-    throw ScenarioError{known ? o->second.file : s.path, known ? o->second.line : 0, known ? o->second.column : 0, key,
-                        "the trimmed start is already beyond this departure bound: " + departure_reason(k, b, f) +
-                            "; the bound must leave room for the trim"};
+    if (o == s.origins.end()) {
+      e.message += " (the default value)";
+    } else {  // as the loader reports a key (scenario.cpp fail)
+      e.file = o->second.file;
+      e.line = o->second.line;
+      e.column = o->second.column;
+      if (!o->second.via.empty()) e.message += " (from " + o->second.via + ")";
+    }
+    throw e;
   }
 }
 

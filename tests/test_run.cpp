@@ -7,7 +7,10 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdint>
+#include <cstdlib>
 #include <filesystem>
+#include <fstream>
+#include <sstream>
 #include <limits>
 #include <memory>
 #include <string>
@@ -336,4 +339,39 @@ TEST_CASE("axis ticks: 1-2-5 steps, nearest or at most the target count") {
   CHECK(std::signbit(v[0]) == false);
   CHECK(v[1] == Approx(0.5));
   CHECK(v[2] == Approx(1.0));
+}
+
+TEST_CASE("report: a sampled run that fails keeps its reason in its row") {
+  // Samples with the CG far forward cannot be trimmed (the tab range runs out): each such row of
+  // uncertainty_responses.csv must say why, and carry no number that looks computed.
+  const std::string exe = std::string(FP_BINARY_DIR) + "/floatpitch";
+  const std::filesystem::path out = std::filesystem::path(FP_BINARY_DIR) / "test_run" / "report_failures";
+  std::filesystem::remove_all(out);
+  const std::string cmd = exe + " report " + std::string(FP_SOURCE_DIR) + "/scenarios/orvane_aft_cg.toml --out " +
+                          out.string() + " --samples 10 --sample 'cg=uniform(-0.5,0.3)' --jobs 2 > /dev/null 2>&1";
+  REQUIRE(std::system(cmd.c_str()) == 0);
+  std::ifstream in(out / "data" / "uncertainty_responses.csv");
+  REQUIRE(in);
+  std::string header;
+  std::getline(in, header);
+  CHECK(header.substr(header.rfind(',') + 1) == "failure");
+  int failed = 0, ran = 0;
+  for (std::string line; std::getline(in, line);) {
+    const auto q = line.find('"');
+    if (q == std::string::npos) {
+      ++ran;
+      continue;
+    }
+    ++failed;
+    CHECK(line.find("trim") != std::string::npos);
+    // index,cg,np_free,max_real_free,...: the free neutral point and root are empty
+    std::vector<std::string> cells;
+    std::stringstream ls(line.substr(0, q));
+    for (std::string c; std::getline(ls, c, ',');) cells.push_back(c);
+    REQUIRE(cells.size() >= 4);
+    CHECK(cells[2].empty());
+    CHECK(cells[3].empty());
+  }
+  CHECK(failed > 0);
+  CHECK(ran > 0);
 }
