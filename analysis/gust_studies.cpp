@@ -13,6 +13,7 @@
 #include "model/units.hpp"
 #include "util/parallel.hpp"
 
+#include <boost/math/tools/minima.hpp>
 #include <nlohmann/json.hpp>
 
 namespace fp {
@@ -98,8 +99,8 @@ TuneResult tune_gust(const Scenario& s, ControlsChoice which, int jobs, bool pro
   for (int k = 0; k < np; ++k)
     r.grid[static_cast<std::size_t>(k)].H = d.tune_min * std::pow(d.tune_max / d.tune_min, static_cast<double>(k) / (np - 1));
   const long tasks = static_cast<long>(np) * static_cast<long>(cases.size());
-  const int golden_iterations = 10;
-  Progress pr(progress, tasks + golden_iterations * static_cast<long>(cases.size()), "runs", "tuned gust");
+  constexpr std::uintmax_t max_refine_runs = 30;
+  Progress pr(progress, tasks + static_cast<long>(max_refine_runs * cases.size()), "runs", "tuned gust");
   parallel_for_rethrow(tasks, jobs, [&](long k) {
     auto& p = r.grid[static_cast<std::size_t>(k / static_cast<long>(cases.size()))];
     const Stick st = cases[static_cast<std::size_t>(k % static_cast<long>(cases.size()))];
@@ -109,7 +110,7 @@ TuneResult tune_gust(const Scenario& s, ControlsChoice which, int jobs, bool pro
     p.amplitude = amp;
     pr.tick();
   });
-  // golden-section refinement in log H between the neighbours of the best grid point
+  // refinement in log H between the neighbours of the best grid point
   std::vector<TunePoint> extra[2];
   double bestH[2] = {nan_, nan_}, bestV[2] = {nan_, nan_};
   parallel_for_rethrow(static_cast<long>(cases.size()), jobs, [&](long ci) {
@@ -120,7 +121,6 @@ TuneResult tune_gust(const Scenario& s, ControlsChoice which, int jobs, bool pro
       if (val(r.grid[k]) > val(r.grid[b])) b = k;
     double H = r.grid[b].H, V = val(r.grid[b]);
     double lo = std::log(r.grid[b > 0 ? b - 1 : 0].H), hi = std::log(r.grid[std::min(b + 1, r.grid.size() - 1)].H);
-    const double g = (std::sqrt(5.0) - 1.0) / 2.0;
     auto eval = [&](double lh) {
       TunePoint p;
       p.H = std::exp(lh);
@@ -136,23 +136,14 @@ TuneResult tune_gust(const Scenario& s, ControlsChoice which, int jobs, bool pro
       }
       return v;
     };
-    double x1 = hi - g * (hi - lo), x2 = lo + g * (hi - lo);
-    double f1 = eval(x1), f2 = eval(x2);
-    for (int it = 2; it < golden_iterations; ++it) {
-      if (f1 > f2) {
-        hi = x2;
-        x2 = x1;
-        f2 = f1;
-        x1 = hi - g * (hi - lo);
-        f1 = eval(x1);
-      } else {
-        lo = x1;
-        x1 = x2;
-        f1 = f2;
-        x2 = lo + g * (hi - lo);
-        f2 = eval(x2);
-      }
-    }
+    // Brent's minimisation (Brent, Algorithms for Minimization without Derivatives, 1973, ch. 5;
+    // Boost.Math brent_find_minima) of -peak in log H, to 2^-10 relative in log H.
+    std::uintmax_t iters = max_refine_runs;
+    boost::math::tools::brent_find_minima([&](double lh) { return -eval(lh); }, lo, hi, 10, iters);
+    if (iters >= max_refine_runs)
+      throw NumericalFailure{0.0, State{}, "tuned-gust search: Brent's minimisation did not converge in " +
+                                               std::to_string(max_refine_runs) + " runs"};
+    for (std::size_t k = extra[ci].size(); k < max_refine_runs; ++k) pr.tick();  // the bar ends full
     bestH[ci] = H;
     bestV[ci] = V;
   });
@@ -178,7 +169,7 @@ SeedsResult run_seeds(const Scenario& s, ControlsChoice which, int seeds, int jo
   const auto plant = scenario_plant(s);
   const Trim trim = scenario_trim(*plant, s);
   const double alpha_stall = wing_stall(s.airplane.wing.lift).alpha;
-  const double gusts_over = gusts_passed_time(s);
+  const double gusts_over = disturbances_over_time(s);
   const ResolvedTurbulence rt = resolve_turbulence(s);
   const double stats_from = rt.active ? rt.stats_from : -1.0;
   std::vector<Stick> cases;
@@ -195,7 +186,7 @@ SeedsResult run_seeds(const Scenario& s, ControlsChoice which, int seeds, int jo
     Scenario c = s;
     c.turbulence.seed = static_cast<int>(static_cast<long>(s.turbulence.seed) + static_cast<long>(i));
     GustField g = scenario_gust_field(c);
-    Simulation sim(plant, std::move(g), trim, c.run, RunCase{st, c.run.let_go_time}, c.events);
+    Simulation sim(plant, std::move(g), trim, run_settings(c), RunCase{st, c.run.let_go_time}, c.events);
     sim.run_to_end();
     CaseResult cr;
     cr.rc = RunCase{st, c.run.let_go_time};

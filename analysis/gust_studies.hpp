@@ -31,7 +31,8 @@ std::vector<RuleEstimate> rule_estimates(const Scenario& s);
 
 // Tuned-gust search: the gradient distance H of the scenario's tuned gust that gives the
 // largest peak load-factor increment, held and free separately. A log-spaced grid over
-// [tune_min, tune_max], then golden-section refinement between the best point's neighbours.
+// [tune_min, tune_max], then Brent's minimisation of -peak in log H between the best point's
+// neighbours (Boost.Math brent_find_minima; NumericalFailure when it does not converge).
 // A rule gust keeps its rule at every H (gradient_distance: the amplitude follows H^(1/6)).
 struct TunePoint {
   double H = 0;                 // [m]

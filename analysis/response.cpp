@@ -32,24 +32,11 @@ const std::array<StatChannelInfo, st_count> kStat{{
 
 const StatChannelInfo& stat_channel_info(std::size_t c) { return kStat.at(c); }
 
-double gusts_passed_time(const Scenario& s) {
-  const double V = s.condition.airspeed * std::cos(s.condition.flight_path) + s.gust_front_speed;
-  const double tail = s.airplane.tail.x_ac - s.airplane.mass.h_cg * s.airplane.wing.mac;  // CG to tail a.c.
-  double t = 0.0;
-  for (const auto& g : s.gusts) {
-    double len = g.length;
-    if (g.shape == GustShape::one_minus_cosine) len = 2.0 * g.length;
-    if (g.shape == GustShape::train) len = (g.count - 1) * g.spacing + 2.0 * g.length;
-    if (g.shape == GustShape::sharp_edge) len = 0.0;  // never passes; its onset is what matters
-    t = std::max(t, (g.start + len + tail) / V);
-  }
-  return t;
-}
-
 CaseSummary summarize_case(const CaseResult& c, double alpha_stall, double gusts_over, double stats_from) {
   CaseSummary out;
   out.departed = c.departure.departed;
   out.departure_time = c.departure.time;
+  out.departure_criterion = c.departure.criterion;
   out.departure_reason = c.departure.reason;
   const Trace& tr = c.trace;
   const std::size_t n = tr.size();
@@ -63,6 +50,7 @@ CaseSummary summarize_case(const CaseResult& c, double alpha_stall, double gusts
   for (std::size_t i = 0; i < n; ++i)
     if (std::abs(tr.ch[ch_gust_w_wing][i]) > 1e-12 || std::abs(tr.ch[ch_gust_u_wing][i]) > 1e-12) {
       m.onset = t[i];
+      out.gust_seen = true;
       break;
     }
   m.peak_alpha = m.alpha_trim = tr.ch[ch_alpha][0];

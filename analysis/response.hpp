@@ -11,8 +11,8 @@
 //  * Peak elevator float: the largest |delta_e - delta_e,trim|.
 //  * Peak stick force: held, the largest |stick force - trim force|; free, the largest force
 //    the pilot would need to hold the elevator where it floated (the hold_force channel).
-//  * Damping: the logarithmic decrement of the pitch rate after the last gust has passed the
-//    tail (analysis/signal.hpp log_decrement_damping; common practice). Pitch rate is used because
+//  * Damping: the logarithmic decrement of the pitch rate after the disturbances are over
+//    (scenario/gust_timing.hpp; analysis/signal.hpp log_decrement_damping; common practice). Pitch rate is used because
 //    the short period shows in it and the phugoid hardly does.
 //  * Settling time: from the onset to the last time |q| is above 5 % of its peak (the 5 %
 //    band of control practice, e.g. Ogata, Modern Control Engineering, sec. 5-3).
@@ -29,6 +29,7 @@
 #include <nlohmann/json_fwd.hpp>
 
 #include "run/run.hpp"
+#include "scenario/gust_timing.hpp"
 
 namespace fp {
 
@@ -70,15 +71,17 @@ struct CaseSummary {
   TurbulenceStats turbulence;
   bool departed = false;
   double departure_time = 0;
+  std::string departure_criterion;  // run/run.hpp departure criteria ("" when not departed)
   std::string departure_reason;
+  bool gust_seen = false;           // a gust reached the wing before the run ended
 };
 
-// `gusts_over`: time by which every discrete gust has passed the tail (0 when none) [s];
+// `gusts_over`: the moment the scenario's disturbances are over (disturbances_over_time) [s];
 // `stats_from`: start of the turbulence window (negative: no turbulence) [s].
 CaseSummary summarize_case(const CaseResult& c, double alpha_stall, double gusts_over, double stats_from);
 
-// Time by which every discrete gust of the scenario has passed the tail [s] (0 when none).
-double gusts_passed_time(const Scenario& s);
+// The moment the disturbances are over (`gusts_over` above): scenario/gust_timing.hpp
+// disturbances_over_time, the one definition.
 
 // JSON (display units in the key names) and terminal tables, held beside free.
 

@@ -160,34 +160,11 @@ SampledFilter sample_filter(const ShapingFilter& f, double dx) {
   return s;
 }
 
-// splitmix64 (Steele, Lea and Flood, OOPSLA 2014) mixes (seed, stream) into the engine's seed.
-NormalStream::NormalStream(std::uint64_t seed, std::uint64_t stream) {
-  std::uint64_t z = seed * 0x9e3779b97f4a7c15ULL + stream * 0xd1b54a32d192ed03ULL + 0x9e3779b97f4a7c15ULL;
-  z = (z ^ (z >> 30)) * 0xbf58476d1ce4e5b9ULL;
-  z = (z ^ (z >> 27)) * 0x94d049bb133111ebULL;
-  engine_.seed(z ^ (z >> 31));
-}
-
-// Box-Muller (Box and Muller, Ann. Math. Statist. 29, 1958), both deviates used.
-double NormalStream::next() {
-  if (has_spare_) {
-    has_spare_ = false;
-    return spare_;
-  }
-  const double scale = 1.0 / 9007199254740992.0;  // 2^-53
-  const double u1 = (static_cast<double>(engine_() >> 11) + 0.5) * scale;
-  const double u2 = (static_cast<double>(engine_() >> 11) + 0.5) * scale;
-  const double r = std::sqrt(-2.0 * std::log(u1));
-  spare_ = r * std::sin(2.0 * pi * u2);
-  has_spare_ = true;
-  return r * std::cos(2.0 * pi * u2);
-}
-
-std::vector<double> generate_samples(const ShapingFilter& f, double dx, std::size_t count, NormalStream& rng) {
+std::vector<double> generate_samples(const ShapingFilter& f, double dx, std::size_t count, SeededRng& rng) {
   const SampledFilter s = sample_filter(f, dx);
   const int n = s.n;
   double x[3] = {0, 0, 0}, z[3], xn[3];
-  for (int i = 0; i < n; ++i) z[i] = rng.next();
+  for (int i = 0; i < n; ++i) z[i] = rng.normal();
   for (int i = 0; i < n; ++i) {
     x[i] = 0.0;
     for (int j = 0; j < n; ++j) x[i] += s.P0[i][j] * z[j];
@@ -197,7 +174,7 @@ std::vector<double> generate_samples(const ShapingFilter& f, double dx, std::siz
     double v = 0.0;
     for (int i = 0; i < n; ++i) v += s.C[i] * x[i];
     y[k] = v;
-    for (int i = 0; i < n; ++i) z[i] = rng.next();
+    for (int i = 0; i < n; ++i) z[i] = rng.normal();
     for (int i = 0; i < n; ++i) {
       double a = 0.0;
       for (int j = 0; j < n; ++j) a += s.Ad[i][j] * x[j] + s.F[i][j] * z[j];
@@ -216,11 +193,11 @@ std::shared_ptr<TurbulenceRecord> make_turbulence_record(const TurbulenceSpec& s
   const auto count = static_cast<std::size_t>(std::ceil(s.length / s.dx)) + 2;
   // one stream per component, so that leaving one out does not change the other
   if (s.sigma_w > 0.0) {
-    NormalStream rng(s.seed, 1);
+    SeededRng rng(s.seed, 1);
     r->w = generate_samples(shaping_filter_w(s.model, s.sigma_w, s.L_w), s.dx, count, rng);
   }
   if (s.sigma_u > 0.0) {
-    NormalStream rng(s.seed, 2);
+    SeededRng rng(s.seed, 2);
     r->u = generate_samples(shaping_filter_u(s.model, s.sigma_u, s.L_u), s.dx, count, rng);
   }
   // zero before x_start, a half-cosine rise over `fade`

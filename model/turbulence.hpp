@@ -24,10 +24,12 @@
 // a linear system driven by white noise (e.g. Gelb, Applied Optimal Estimation, sec. 4.2,
 // discrete equivalent of a continuous system).
 //
-// Random numbers: std::mt19937_64 (its output sequence is fixed by the C++ standard) and a
-// Box-Muller transform written here (std::normal_distribution is not specified bit for bit),
+// Random numbers: util/rng.hpp SeededRng (std::mt19937_64, whose sequence the C++ standard fixes, and a
+// Box-Muller transform; std::normal_distribution is not specified bit for bit),
 // one stream per component derived from the seed: the same seed gives the same record.
 #pragma once
+
+#include "util/rng.hpp"
 
 #include <cstdint>
 #include <memory>
@@ -73,20 +75,8 @@ struct SampledFilter {
 };
 SampledFilter sample_filter(const ShapingFilter& f, double dx);
 
-// A generator of normal deviates from a seed: std::mt19937_64 seeded with splitmix64(seed,
-// stream) and Box-Muller. Bit-for-bit reproducible for a given (seed, stream).
-class NormalStream {
- public:
-  NormalStream(std::uint64_t seed, std::uint64_t stream);
-  double next();
- private:
-  std::mt19937_64 engine_;
-  double spare_ = 0;
-  bool has_spare_ = false;
-};
-
 // Output samples y_0..y_{count-1} of the filter at spacing dx, from the stationary state.
-std::vector<double> generate_samples(const ShapingFilter& f, double dx, std::size_t count, NormalStream& rng);
+std::vector<double> generate_samples(const ShapingFilter& f, double dx, std::size_t count, SeededRng& rng);
 
 // What to generate for a run.
 struct TurbulenceSpec {

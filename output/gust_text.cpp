@@ -12,6 +12,7 @@
 #include "model/static.hpp"
 #include "model/units.hpp"
 #include "output/outputs.hpp"
+#include "output/response_text.hpp"
 #include "util/caution.hpp"
 #include "output/response_text.hpp"
 
@@ -81,10 +82,10 @@ Summaries summaries(const Scenario& s, const RunOutcome& r, const TuneResult* tu
   const double from = rt.active ? rt.stats_from : -1.0;
   if (r.held)
     out.held = std::make_unique<CaseSummary>(
-        summarize_case(*r.held, alpha_stall, gusts_passed_time(case_scenario(s, tune, Stick::held)), from));
+        summarize_case(*r.held, alpha_stall, disturbances_over_time(case_scenario(s, tune, Stick::held)), from));
   if (r.free)
     out.free = std::make_unique<CaseSummary>(
-        summarize_case(*r.free, alpha_stall, gusts_passed_time(case_scenario(s, tune, Stick::free)), from));
+        summarize_case(*r.free, alpha_stall, disturbances_over_time(case_scenario(s, tune, Stick::free)), from));
   return out;
 }
 
@@ -207,7 +208,7 @@ std::string gust_table(const Scenario& s, const RunOutcome& r, const TuneResult*
                     f(p.peak_held, 3).c_str(), f(p.peak_free, 3).c_str());
       o += line;
     }
-    o += "  refined (golden section between the best grid point's neighbours): worst held H = " +
+    o += "  refined (Brent's method between the best grid point's neighbours): worst held H = " +
          f(tune->H_held / units::ft, 1) + " ft (peak " + f(tune->peak_held, 3) + "), free H = " +
          f(tune->H_free / units::ft, 1) + " ft (peak " + f(tune->peak_free, 3) + ")\n  the runs and the comparison above were made at each case's own worst H\n";
   }
@@ -337,7 +338,7 @@ SeedsReport seeds_report(const Scenario& s, const SeedsResult& r) {
   if (has[0] && has[1]) {
     json rr = json::object();
     for (std::size_t m = 0; m < metrics.size(); ++m)
-      rr[metrics[m].name] = num(sp[0][m].mean != 0.0 ? sp[1][m].mean / sp[0][m].mean : NAN);
+      rr[metrics[m].name] = num(free_to_held_ratio(sp[1][m].mean, sp[0][m].mean));
     j["ratio_of_means_free_to_held"] = rr;
   }
   j["statistics"] =
@@ -358,7 +359,9 @@ SeedsReport seeds_report(const Scenario& s, const SeedsResult& r) {
     auto ms = [&](int c) {
       return has[c] && sp[c][m].n > 0 ? f(sp[c][m].mean, 3) + " +- " + f(sp[c][m].sd, 3) : std::string("-");
     };
-    const std::string ratio = has[0] && has[1] && sp[0][m].mean != 0.0 ? f(sp[1][m].mean / sp[0][m].mean, 2) : "";
+    const bool both = has[0] && has[1];
+    const std::string ratio = !both ? "" : opposite_signs(sp[1][m].mean, sp[0][m].mean) ? "opp. sign"
+                                                                                   : f(free_to_held_ratio(sp[1][m].mean, sp[0][m].mean), 2);
     std::snprintf(line, sizeof line, "%-36s %22s %22s %9s\n", metrics[m].name.c_str(), ms(0).c_str(), ms(1).c_str(),
                   ratio.c_str());
     out.table += line;

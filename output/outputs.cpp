@@ -110,6 +110,7 @@ json case_json(const CaseResult& c) {
   json j{{"diverged", c.departure.departed},
          {"divergence_time_s", c.departure.departed ? json(c.departure.time) : json(nullptr)},
          {"divergence_reason", c.departure.departed ? json(c.departure.reason) : json(nullptr)},
+         {"divergence_criterion", c.departure.departed ? json(c.departure.criterion) : json(nullptr)},
          {"let_go_time_s", c.rc.stick == Stick::free ? json(c.rc.let_go_time) : json(nullptr)},
          {"end_time_s", c.trace.size() ? c.trace.ch[ch_time].back() : 0.0},
          {"peaks", peaks},

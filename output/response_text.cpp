@@ -21,6 +21,16 @@ json num(double v) { return std::isfinite(v) ? json(v) : json(nullptr); }
 
 }  // namespace
 
+bool opposite_signs(double f, double h) { return std::isfinite(f) && std::isfinite(h) && f * h < 0.0; }
+
+double free_to_held_ratio(double f, double h) {
+  // a held value that is only the integrator's noise (a million times below the free one,
+  // e.g. a held run that stays in trim) gives no ratio either
+  if (!std::isfinite(f) || !std::isfinite(h) || h == 0.0 || opposite_signs(f, h)) return nan_;
+  if (std::abs(h) <= 1e-6 * std::abs(f)) return nan_;
+  return std::abs(f) / std::abs(h);
+}
+
 json case_summary_json(const CaseSummary& c) {
   const ResponseMetrics& m = c.response;
   json j{{"peak_load_factor_increment", m.peak_dn},
@@ -37,7 +47,10 @@ json case_summary_json(const CaseSummary& c) {
          {"settling_time_s", num(m.settling_time)},
          {"settled", m.settled},
          {"departed", c.departed},
-         {"departure_time_s", c.departed ? json(c.departure_time) : json(nullptr)}};
+         {"departure_time_s", c.departed ? json(c.departure_time) : json(nullptr)},
+         {"departure_criterion", c.departed ? json(c.departure_criterion) : json(nullptr)},
+         {"departure_reason", c.departed ? json(c.departure_reason) : json(nullptr)},
+         {"gust_reached_airplane", c.gust_seen}};
   if (c.turbulence.active) {
     const auto& s = c.turbulence;
     json rms = json::object(), ex = json::object();
@@ -55,17 +68,16 @@ json case_summary_json(const CaseSummary& c) {
 
 namespace {
 
-double ratio(double f, double h) {
-  if (!std::isfinite(f) || !std::isfinite(h) || h == 0.0) return nan_;
-  return std::abs(f) / std::abs(h);
-}
+double ratio(double f, double h) { return free_to_held_ratio(f, h); }
 
 }  // namespace
 
 json comparison_json(const CaseSummary* held, const CaseSummary* free) {
   json j{{"definitions",
           "increments from the trim at t = 0; free stick force = force to hold the elevator where it floated; "
-          "damping by log decrement of pitch rate after the gusts; settling = 5 % band of peak pitch rate"},
+          "damping by log decrement of pitch rate after the disturbances; settling = 5 % band of peak pitch rate; "
+          "ratio_free_to_held = |free|/|held|, null where held is 0 or where the two have opposite signs (a ratio "
+          "of magnitudes would hide that the free airplane went the other way)"},
          {"held", held ? case_summary_json(*held) : json(nullptr)},
          {"free", free ? case_summary_json(*free) : json(nullptr)}};
   if (held && free) {
@@ -110,9 +122,15 @@ std::string comparison_table(const CaseSummary* held, const CaseSummary* free) {
   std::ostringstream o;
   const ResponseMetrics* h = held ? &held->response : nullptr;
   const ResponseMetrics* f = free ? &free->response : nullptr;
+  bool any_opposite = false;
+  auto ratio_cell = [&](double fv, double hv) {
+    if (!opposite_signs(fv, hv)) return cell(ratio(fv, hv), 2);
+    any_opposite = true;
+    return std::string("opp. sign");
+  };
   auto line = [&](const char* label, auto get, int dec, bool with_ratio = true) {
     const double hv = h ? get(*h) : nan_, fv = f ? get(*f) : nan_;
-    row(o, label, cell(hv, dec), cell(fv, dec), with_ratio ? cell(ratio(fv, hv), 2) : "");
+    row(o, label, cell(hv, dec), cell(fv, dec), with_ratio ? ratio_cell(fv, hv) : "");
   };
   row(o, "gust response", "held", "free", "free/held");
   line("peak load-factor increment [-]", [](const ResponseMetrics& m) { return m.peak_dn; }, 3);
@@ -129,7 +147,7 @@ std::string comparison_table(const CaseSummary* held, const CaseSummary* free) {
       return c->departed || c->turbulence.active ? std::string("-") : std::string("aperiodic");
     };
     row(o, "damping ratio (log decrement of q)", damp(held), damp(free),
-        cell(ratio(f ? f->damping : nan_, h ? h->damping : nan_), 2));
+        ratio_cell(f ? f->damping : nan_, h ? h->damping : nan_));
   }
   line("settling time, 5 % of peak q [s]", [](const ResponseMetrics& m) { return m.settling_time; }, 2);
   const bool turb = (held && held->turbulence.active) || (free && free->turbulence.active);
@@ -142,7 +160,7 @@ std::string comparison_table(const CaseSummary* held, const CaseSummary* free) {
     for (std::size_t k = 0; k < st_count; ++k) {
       const auto& ci = stat_channel_info(k);
       const double hv = sh ? sh->rms[k] * ci.display : nan_, fv = sf ? sf->rms[k] * ci.display : nan_;
-      row(o, std::string("RMS ") + ci.name + " [" + ci.unit + "]", cell(hv, 3), cell(fv, 3), cell(ratio(fv, hv), 2));
+      row(o, std::string("RMS ") + ci.name + " [" + ci.unit + "]", cell(hv, 3), cell(fv, 3), ratio_cell(fv, hv));
     }
     for (std::size_t k = 0; k < st_count; ++k) {
       const auto& ci = stat_channel_info(k);
@@ -152,9 +170,14 @@ std::string comparison_table(const CaseSummary* held, const CaseSummary* free) {
       }
     }
   }
+  if (any_opposite)
+    o << "opp. sign: held and free of opposite sign have no ratio (the free airplane went the other way)\n";
+  const bool gusty = (held && held->gust_seen) || (free && free->gust_seen);
   for (const CaseSummary* c : {held, free})
     if (c && c->departed)
-      o << (c == held ? "held" : "free") << " departed at " << cell(c->departure_time, 2) << " s: the figures above end there\n";
+      o << (c == held ? "held" : "free") << " departed at " << cell(c->departure_time, 2) << " s (" << c->departure_reason
+        << "): the figures above end there"
+        << (gusty && !c->gust_seen ? "; it departed before its gust arrived, so they are no gust response" : "") << "\n";
   return o.str();
 }
 

@@ -29,7 +29,9 @@
 #include "output/outputs.hpp"
 #include "output/response_text.hpp"
 #include "output/sweep_text.hpp"
+#include "util/parallel.hpp"
 #include "util/sha256.hpp"
+#include "util/ticks.hpp"
 #include "report/svg.hpp"
 #include "version.hpp"
 
@@ -133,26 +135,6 @@ std::vector<InputFile> input_files(const std::string& path) {
     p = next;
   }
   return out;
-}
-
-// A nice step (1, 2 or 5 times a power of ten) giving about n intervals over a range.
-double nice_step(double range, int n) {
-  const double raw = range / n;
-  const double p = std::pow(10.0, std::floor(std::log10(raw)));
-  const double m = raw / p;
-  return (m < 1.5 ? 1 : m < 3.5 ? 2 : m < 7.5 ? 5 : 10) * p;
-}
-
-template <class F>
-void parallel_indices(long n, int jobs, F&& f) {
-  std::atomic<long> next{0};
-  auto worker = [&] {
-    for (long i = next++; i < n; i = next++) f(i);
-  };
-  std::vector<std::thread> pool;
-  for (int k = 1; k < std::min<long>(std::max(1, jobs), n); ++k) pool.emplace_back(worker);
-  worker();
-  for (auto& t : pool) t.join();
 }
 
 std::string shape_words(const DiscreteGust& g) {
@@ -367,7 +349,7 @@ ReportData make_report(const ReportOptions& o) {
       if (auto why = keys::range_problem(k, from)) throw option_error("--cg-range " + o.cg_range, "FROM: " + *why);
       if (auto why = keys::range_problem(k, to)) throw option_error("--cg-range " + o.cg_range, "TO: " + *why);
     }
-    const double step = nice_step(to - from, 30);
+    const double step = tick_step(to - from, 30, TickFit::nearest);
     from = std::floor(from / step + 1e-9) * step;
     to = std::ceil(to / step - 1e-9) * step;
     d.cg_range_text = fmt_g(from) + " to " + fmt_g(to) + " in steps of " + fmt_g(step);
@@ -470,7 +452,7 @@ ReportData make_report(const ReportOptions& o) {
     }
     std::vector<std::unique_ptr<CaseResult>> runs(u.sampled.points.size());
     std::vector<SampleResponse> resp(u.sampled.points.size());
-    parallel_indices(static_cast<long>(u.sampled.points.size()), o.jobs, [&](long i) {
+    parallel_for(static_cast<long>(u.sampled.points.size()), std::max(1, o.jobs), [&](long i) {
       const PointResult& p = u.sampled.points[static_cast<std::size_t>(i)];
       SampleResponse& r = resp[static_cast<std::size_t>(i)];
       r.index = p.index;
@@ -478,7 +460,11 @@ ReportData make_report(const ReportOptions& o) {
       r.np_free = p.np_free;
       r.max_real_free = p.max_real_free;
       r.departure_time = r.peak_dn = r.peak_dalpha = nan_;
-      if (!p.ok) return;
+      if (!p.ok) {
+        r.failure = p.reason;  // the sweep point's own failure (trim, scenario)
+        r.np_free = r.max_real_free = nan_;  // not computed: no zeros in the bands
+        return;
+      }
       try {
         Scenario sc = gc.scenario;
         sc.run.duration = u.response_seconds;
@@ -494,9 +480,16 @@ ReportData make_report(const ReportOptions& o) {
           r.peak_dalpha = std::max(r.peak_dalpha, std::abs(tr.ch[ch_alpha][k] - ro.trim.alpha));
         }
         runs[static_cast<std::size_t>(i)] = std::move(ro.free);
-      } catch (const ScenarioError&) {
-      } catch (const TrimError&) {
-      } catch (const NumericalFailure&) {
+      } catch (const ScenarioError& e) {
+        r.failure = e.what();
+      } catch (const TrimError& e) {
+        r.failure = "trim: " + e.message;
+      } catch (const NumericalFailure& e) {
+        r.failure = "numerical failure at t = " + svg::number(e.time, 3) + " s: " + e.message;
+      } catch (const std::exception& e) {
+        r.failure = std::string("error: ") + e.what();
+      } catch (...) {
+        r.failure = "error of an unknown kind";
       }
     });
     u.responses = resp;

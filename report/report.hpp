@@ -67,6 +67,7 @@ struct SampleResponse {
   double departure_time = 0;            // [s] (NaN when none)
   double peak_dn = 0;                   // max |n - 1| of the free run [-]
   double peak_dalpha = 0;               // max |alpha - alpha_trim| of the free run [rad]
+  std::string failure;                  // why the sample could not be run ("" when it ran)
 };
 
 struct UncertaintyResult {

@@ -863,7 +863,7 @@ std::vector<DataFile> data_files(const ReportData& d) {
   {
     std::string c = "index";
     for (const auto& k : u.keys) c += "," + k;
-    c += ",np_free,max_real_free [1/s],departed,departure_time [s],peak_dn [-],peak_dalpha [deg]\n";
+    c += ",np_free,max_real_free [1/s],departed,departure_time [s],peak_dn [-],peak_dalpha [deg],failure\n";
     for (const auto& r : u.responses) {
       c += std::to_string(r.index);
       for (double v : r.inputs) {
@@ -871,7 +871,10 @@ std::vector<DataFile> data_files(const ReportData& d) {
         c += csv_num(v);
       }
       c += "," + csv_num(r.np_free) + "," + csv_num(r.max_real_free) + "," + (r.departed ? "1" : "0") + "," +
-           csv_num(r.departure_time) + "," + csv_num(r.peak_dn) + "," + csv_num(units::to_deg(r.peak_dalpha)) + "\n";
+           csv_num(r.departure_time) + "," + csv_num(r.peak_dn) + "," + csv_num(units::to_deg(r.peak_dalpha)) + ",";
+      std::string why = r.failure;  // quoted, as sweep.csv writes its reasons
+      std::replace(why.begin(), why.end(), '"', '\'');
+      c += (why.empty() ? std::string() : "\"" + why + "\"") + "\n";
     }
     f.push_back({"data/uncertainty_responses.csv", "section 7: each sample's hands-off run", c});
     std::string e = "time [s]";

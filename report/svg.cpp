@@ -1,5 +1,6 @@
 // svg.cpp — small SVG plots for the report (see svg.hpp).
 #include "report/svg.hpp"
+#include "util/ticks.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -180,15 +181,9 @@ Ticks nice_ticks(double lo, double hi, int target) {
     t.values = {lo};
     return t;
   }
-  const double raw = (hi - lo) / std::max(1, target);
-  const double p = std::pow(10.0, std::floor(std::log10(raw)));
-  const double m = raw / p;
-  const double k = m < 1.5 ? 1 : m < 3.5 ? 2 : m < 7.5 ? 5 : 10;
-  t.step = k * p;
+  t.step = tick_step(hi - lo, target, TickFit::nearest);  // util/ticks.hpp
   t.decimals = std::max(0, static_cast<int>(-std::floor(std::log10(t.step) + 1e-9)));
-  const long a = static_cast<long>(std::ceil(lo / t.step - 1e-9));
-  const long b = static_cast<long>(std::floor(hi / t.step + 1e-9));
-  for (long i = a; i <= b; ++i) t.values.push_back(static_cast<double>(i) * t.step);
+  t.values = tick_values(lo, hi, t.step);
   return t;
 }
 

@@ -7,10 +7,6 @@
 
 namespace fp {
 
-double gust_closing_speed(const Scenario& s) {
-  return s.condition.airspeed * std::cos(s.condition.flight_path) + s.gust_front_speed;
-}
-
 ResolvedTurbulence resolve_turbulence(const Scenario& s) {
   ResolvedTurbulence r;
   const TurbulenceSettings& t = s.turbulence;

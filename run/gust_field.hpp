@@ -5,14 +5,13 @@
 #include <memory>
 
 #include "model/turbulence.hpp"
+#include "scenario/gust_timing.hpp"
 #include "scenario/scenario.hpp"
 
 namespace fp {
 
-// The speed at which the airplane moves through a frozen gust field, relative to the field:
-// the trim airspeed's horizontal part plus the speed of a gust front moving towards it [m/s].
-// The one definition for every consumer (turbulence record extent, gust timing, plots).
-double gust_closing_speed(const Scenario& s);
+// gust_closing_speed (the speed at which the airplane moves through the field) lives in
+// scenario/gust_timing.hpp, included here for its consumers.
 
 // What the scenario's [turbulence] table asks for, resolved: intensities and scale lengths
 // from the height and severity (or the overrides), the record's extent and spacing.

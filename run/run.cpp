@@ -5,6 +5,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include <boost/math/tools/toms748_solve.hpp>
 #include <boost/numeric/odeint.hpp>
 
 #include "model/units.hpp"
@@ -113,6 +114,7 @@ Simulation::Simulation(std::shared_ptr<const Plant> plant, GustField gust, const
   x_ = trim.x;
   ctl_ = trim.controls;
   V_trim_ = trim.airspeed;
+  bounds_ = departure_bounds(settings_, V_trim_);
   // the free case starts held and lets go at its time (at once when it is 0)
   if (rc.stick == Stick::free) {
     if (rc.let_go_time <= 0.0) {
@@ -141,24 +143,120 @@ void Simulation::restart() { stepper_->initialised = false; }
 
 void Simulation::record(double t, const State& x) { trace_.push(output_row(*plant_, gust_, t, x, ctl_)); }
 
-bool Simulation::check_departure(double /*t*/, const State& x, std::string& why) const {
-  const double V = std::hypot(x[sx::u], x[sx::w]);
-  const double alpha = std::atan2(x[sx::w], x[sx::u]);
-  if (std::abs(alpha) > settings_.alpha_limit) {
-    why = fmt("angle of attack beyond +-%.1f deg (%.1f deg)", units::to_deg(settings_.alpha_limit),
-              units::to_deg(alpha));
-    return true;
+DepartureBounds departure_bounds(const RunSettings& rs, double V_trim) {
+  DepartureBounds b;
+  b.alpha = rs.alpha_limit;
+  b.q = rs.q_limit;
+  b.v_min = rs.min_airspeed_ratio * V_trim;
+  b.v_max_stated = rs.dive_speed > 0.0;
+  b.v_max = b.v_max_stated ? rs.dive_speed : rs.max_airspeed_ratio * V_trim;
+  b.theta = rs.theta_limit;
+  b.h_floor = rs.floor_altitude;
+  b.n_min = rs.load_factor_min;
+  b.n_max = rs.load_factor_max;
+  return b;
+}
+
+RunSettings run_settings(const Scenario& s) {
+  RunSettings rs = s.run;
+  rs.dive_speed = s.envelope.max_speed;
+  return rs;
+}
+
+namespace {
+constexpr const char* kCriteria[departure_criteria_count] = {
+    "angle_of_attack", "pitch_rate", "underspeed", "overspeed", "floor", "pitch_attitude", "load_factor"};
+}  // namespace
+
+const char* departure_criterion_name(int k) { return kCriteria[k]; }
+
+double departure_excess(int k, const DepartureBounds& b, const FlightValues& f) {
+  switch (k) {
+    case 0: return std::abs(f.alpha) - b.alpha;
+    case 1: return std::abs(f.q) - b.q;
+    case 2: return b.v_min - f.V;
+    case 3: return f.V - b.v_max;
+    case 4: return b.h_floor - f.h;
+    case 5: return std::abs(f.theta) - b.theta;
+    default: return std::max(f.n - b.n_max, b.n_min - f.n);
   }
-  if (std::abs(x[sx::q]) > settings_.q_limit) {
-    why = fmt("pitch rate beyond +-%.1f deg/s (%.1f deg/s)", units::to_deg(settings_.q_limit),
-              units::to_deg(x[sx::q]));
-    return true;
+}
+
+std::string departure_reason(int k, const DepartureBounds& b, const FlightValues& f) {
+  switch (k) {
+    case 0:
+      return fmt("angle of attack beyond +-%.1f deg (%.1f deg)", units::to_deg(b.alpha), units::to_deg(f.alpha));
+    case 1:
+      return fmt("pitch rate beyond +-%.1f deg/s (%.1f deg/s)", units::to_deg(b.q), units::to_deg(f.q));
+    case 2:
+      return fmt("airspeed below %.2f m/s, run.min_airspeed_ratio times trim (%.2f m/s)", b.v_min, f.V);
+    case 3:
+      return fmt(b.v_max_stated ? "overspeed: airspeed above envelope.max_speed %.2f m/s (%.2f m/s)"
+                                : "overspeed: airspeed above %.2f m/s, run.max_airspeed_ratio times trim (%.2f m/s)",
+                 b.v_max, f.V);
+    case 4:
+      return fmt("altitude below run.floor_altitude %.1f m (%.1f m)", b.h_floor, f.h);
+    case 5:
+      return fmt("pitch attitude beyond +-%.1f deg (%.1f deg)", units::to_deg(b.theta), units::to_deg(f.theta));
+    default:
+      return f.n > b.n_max ? fmt("load factor above %.2f (%.2f)", b.n_max, f.n)
+                           : fmt("load factor below %.2f (%.2f)", b.n_min, f.n);
   }
-  if (V < settings_.min_airspeed_ratio * V_trim_) {
-    why = fmt("airspeed below %.0f %% of trim (%.1f m/s)", 100.0 * settings_.min_airspeed_ratio, V);
-    return true;
+}
+
+// The same evaluation as output_row (model/dynamics.cpp derivatives): what the CSV prints.
+FlightValues Simulation::flight_values(double t, const State& x) const {
+  State d{};
+  Eval e;
+  derivatives(*plant_, gust_, x, ctl_, t, d, &e);
+  return FlightValues{e.V, e.alpha, x[sx::q], x[sx::theta], x[sx::h], e.load_factor};
+}
+
+int Simulation::departed_criterion(double t, const State& x) const { return first_beyond(flight_values(t, x)); }
+
+int Simulation::first_beyond(const FlightValues& f) const {
+  for (int k = 0; k < departure_criteria_count; ++k)
+    if (departure_excess(k, bounds_, f) > 0.0) return k;
+  return -1;
+}
+
+// Each criterion beyond its bound at t_hi crosses it once between the last clear instant and
+// t_hi (the excess is continuous on the dense output, which is a polynomial in t inside the
+// step): its crossing is the root of the excess, bracketed, found by TOMS 748 (Alefeld, Potra
+// and Shi, ACM TOMS 21, 1995; Boost.Math toms748_solve) to 40 bits. The earliest crossing names
+// the departure.
+void Simulation::record_departure(double t_hi, const State& x_hi) {
+  auto& st = *stepper_;
+  const double t_lo = std::min(t_hi, std::max(clear_time_, st.dense.previous_time()));
+  const FlightValues f_hi = flight_values(t_hi, x_hi);
+  State xs;
+  State x_lo;
+  st.dense.calc_state(t_lo, x_lo);
+  const FlightValues f_lo = flight_values(t_lo, x_lo);
+  double t_dep = t_hi;
+  int which = -1;
+  for (int k = 0; k < departure_criteria_count; ++k) {
+    if (departure_excess(k, bounds_, f_hi) <= 0.0) continue;
+    double tk = t_lo;  // already beyond at t_lo (an instant not checked, e.g. a restart)
+    if (departure_excess(k, bounds_, f_lo) <= 0.0 && t_hi > t_lo) {
+      auto g = [&](double t) {
+        st.dense.calc_state(t, xs);
+        return departure_excess(k, bounds_, flight_values(t, xs));
+      };
+      std::uintmax_t iters = 100;
+      const auto r = boost::math::tools::toms748_solve(g, t_lo, t_hi, boost::math::tools::eps_tolerance<double>(40), iters);
+      if (iters >= 100)
+        throw NumericalFailure{t_hi, x_hi, std::string("the time the ") + kCriteria[k] +
+                                               " bound was crossed was not found in 100 evaluations (TOMS 748)"};
+      tk = r.second;
+    }
+    if (which < 0 || tk < t_dep) {
+      which = k;
+      t_dep = tk;
+    }
   }
-  return false;
+  if (which < 0) which = departed_criterion(t_hi, x_hi);
+  dep_ = Departure{true, t_dep, kCriteria[which], departure_reason(which, bounds_, f_hi)};
 }
 
 void Simulation::apply(const Event& e) {
@@ -247,46 +345,39 @@ bool Simulation::advance_to(double target) {
   // may already be ahead of t_ from an earlier call (a live loop advancing in slices): the grid
   // points of that step up to the new stop are sampled here, so slicing changes nothing.
   auto sample = [&](double upto, double stop) {
-    const double t_before = st.dense.previous_time();
     while (true) {
       const double tk = static_cast<double>(out_index_) * settings_.output_step;
       if (tk > upto + tiny || tk > settings_.duration + tiny) break;
       State xk;
       st.dense.calc_state(tk, xk);
-      std::string why;
-      if (check_departure(tk, xk, why)) {
-        // bisect the crossing time inside this step on the dense output
-        double lo = std::max(t_before, tk - settings_.output_step), hi = tk;
-        State xm;
-        for (int i = 0; i < 50; ++i) {
-          const double mid = 0.5 * (lo + hi);
-          st.dense.calc_state(mid, xm);
-          std::string w2;
-          if (check_departure(mid, xm, w2)) hi = mid; else lo = mid;
-        }
-        dep_ = Departure{true, hi, why};
-        record(tk, xk);
+      // the row the CSV gets is what the criteria read (one evaluation for both)
+      const auto row = output_row(*plant_, gust_, tk, xk, ctl_);
+      if (first_beyond(FlightValues{row[ch_airspeed], row[ch_alpha], row[ch_q], row[ch_theta], row[ch_altitude],
+                                    row[ch_load_factor]}) >= 0) {
+        record_departure(tk, xk);
+        trace_.push(row);
         t_ = tk;
         x_ = xk;
         done_ = true;
         return false;
       }
-      record(tk, xk);
+      trace_.push(row);
+      clear_time_ = tk;
       ++out_index_;
     }
     // a departure between grid points (a short excursion) counts too
     const double t_after = st.dense.current_time();
     if (t_after <= stop + tiny && t_after > end_checked_) {
       end_checked_ = t_after;
-      std::string why;
       const State& xs = st.dense.current_state();
-      if (check_departure(t_after, xs, why)) {
-        dep_ = Departure{true, t_after, why};
+      if (departed_criterion(t_after, xs) >= 0) {
+        record_departure(t_after, xs);
         t_ = t_after;
         x_ = xs;
         done_ = true;
         return false;
       }
+      clear_time_ = t_after;
     }
     return true;
   };
@@ -365,6 +456,46 @@ GustField scenario_gust_field(const Scenario& s) {
   return g;
 }
 
+namespace {
+
+// The key that sets departure criterion k's bound (for the message when the trim is beyond it).
+const char* bound_key(int k, const DepartureBounds& b) {
+  constexpr const char* keys[departure_criteria_count] = {"run.alpha_limit", "run.q_limit", "run.min_airspeed_ratio",
+                                                          "run.max_airspeed_ratio", "run.floor_altitude",
+                                                          "run.theta_limit", "run.load_factor_max"};
+  if (k == 3 && b.v_max_stated) return "envelope.max_speed";
+  return keys[k];
+}
+
+// A run that would depart at its first instant is bad input, not a result: the bound excludes
+// the very condition the scenario asks for. Throws ScenarioError naming the key.
+void check_trim_within_bounds(const Scenario& s, const Plant& p, const GustField& g, const Trim& t) {
+  const RunSettings rs = run_settings(s);
+  const DepartureBounds b = departure_bounds(rs, t.airspeed);
+  const auto row = output_row(p, g, 0.0, t.x, t.controls);
+  const FlightValues f{row[ch_airspeed], row[ch_alpha], row[ch_q], row[ch_theta], row[ch_altitude], row[ch_load_factor]};
+  for (int k = 0; k < departure_criteria_count; ++k) {
+    if (departure_excess(k, b, f) <= 0.0) continue;
+    std::string key = bound_key(k, b);
+    if (k == 6 && f.n < b.n_min) key = "run.load_factor_min";
+    // where the bound came from: a file's line, an option (--set, --vary), or the default
+    ScenarioError e{s.path, 0, 0, key, "the trimmed start is already beyond this departure bound: " +
+                                           departure_reason(k, b, f) + "; the bound must leave room for the trim"};
+    const auto o = s.origins.find(key);
+    if (o == s.origins.end()) {
+      e.message += " (the default value)";
+    } else {  // as the loader reports a key (scenario.cpp fail)
+      e.file = o->second.file;
+      e.line = o->second.line;
+      e.column = o->second.column;
+      if (!o->second.via.empty()) e.message += " (from " + o->second.via + ")";
+    }
+    throw e;
+  }
+}
+
+}  // namespace
+
 RunOutcome run_scenario(const Scenario& s, ControlsChoice which) {
   if (!s.airplane.circuit.reversible && which != ControlsChoice::held)
     throw ScenarioError{s.path, 0, 0, "circuit.reversible",
@@ -374,10 +505,12 @@ RunOutcome run_scenario(const Scenario& s, ControlsChoice which) {
   RunOutcome out;
   out.trim = scenario_trim(*plant, s);
   const GustField gust = scenario_gust_field(s);
+  check_trim_within_bounds(s, *plant, gust, out.trim);
+  const RunSettings rs = run_settings(s);
   auto run_case = [&](Stick stick) {
     auto r = std::make_unique<CaseResult>();
     r->rc = RunCase{stick, s.run.let_go_time};
-    Simulation sim(plant, gust, out.trim, s.run, r->rc, s.events);
+    Simulation sim(plant, gust, out.trim, rs, r->rc, s.events);
     sim.run_to_end();
     r->trace = sim.trace();
     r->departure = sim.departure();

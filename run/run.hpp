@@ -3,8 +3,8 @@
 // Boost.Odeint's Dormand-Prince 5(4) with error control and dense output steps the model;
 // the output is sampled on a fixed grid from the dense output, so the grid does not depend on
 // the solver's own steps. Timeline events split the integration at their times (the stepper
-// is re-initialised there), never inside a step. A departure of the airplane (angle of attack,
-// pitch rate or airspeed out of bounds) is a *result*: the run stops cleanly and records when.
+// is re-initialised there), never inside a step. A departure of the airplane (one of the
+// departure criteria below) is a *result*: the run stops cleanly and records when and why.
 // A NaN or a collapse of the step size is a *numerical failure*: NumericalFailure is thrown
 // with the time and the state. The two are never confused.
 //
@@ -63,11 +63,49 @@ struct NumericalFailure {
   std::string message;
 };
 
+// Departure criteria. The run has departed, and stops, the first time one of these holds
+// ([run] keys; DEVELOPERS.md "Run verdicts"). Every quantity is the one the CSV prints: the
+// air-relative airspeed and angle of attack at the wing-body a.c. and the load factor of the
+// model's evaluation (model/dynamics.hpp Eval), the pitch rate, attitude and altitude states.
+//   angle_of_attack  |alpha| > run.alpha_limit
+//   pitch_rate       |q| > run.q_limit
+//   underspeed       V < run.min_airspeed_ratio * V_trim
+//   overspeed        V > envelope.max_speed (the design dive speed V_D or V_NE the aircraft file
+//                    states, compared with the true airspeed: conservative, since TAS >= EAS
+//                    below the tropopause), else V > run.max_airspeed_ratio * V_trim
+//   floor            h < run.floor_altitude (0: the flat-Earth model's ground)
+//   pitch_attitude   |theta| > run.theta_limit
+//   load_factor      n > run.load_factor_max or n < run.load_factor_min
+// The time is the earliest crossing among the criteria that hold, found on the dense output
+// between the last instant checked clear and the first found beyond (Boost.Math TOMS 748).
 struct Departure {
   bool departed = false;
   double time = 0;       // [s]
-  std::string reason;    // which bound, e.g. "angle of attack above 34.4 deg"
+  std::string criterion; // one of the names above ("" when not departed)
+  std::string reason;    // which bound, e.g. "angle of attack beyond +-20.1 deg (20.3 deg)"
 };
+
+// The airplane's departure bounds as a run applies them (SI). `V_trim` is the trim airspeed.
+struct DepartureBounds {
+  double alpha = 0, q = 0, v_min = 0, v_max = 0, theta = 0, h_floor = 0, n_min = 0, n_max = 0;
+  bool v_max_stated = false;   // v_max is the aircraft's envelope.max_speed (not a multiple of trim)
+};
+DepartureBounds departure_bounds(const RunSettings& rs, double V_trim);
+
+// The air data a departure check reads (the CSV's airspeed, angle of attack and load factor).
+struct FlightValues {
+  double V = 0, alpha = 0, q = 0, theta = 0, h = 0, n = 0;
+};
+// Signed excess of criterion k (0..criteria_count-1) beyond its bound, in the criterion's unit:
+// positive once departed. The load-factor criterion is the larger of its two sides.
+inline constexpr int departure_criteria_count = 7;
+double departure_excess(int k, const DepartureBounds& b, const FlightValues& f);
+const char* departure_criterion_name(int k);
+std::string departure_reason(int k, const DepartureBounds& b, const FlightValues& f);
+
+// The scenario's run settings with what the aircraft file adds (envelope.max_speed as the
+// overspeed bound). Every run of a scenario should start from these.
+RunSettings run_settings(const Scenario& s);
 
 // The case being run: which stick, the trim it starts from.
 struct RunCase {
@@ -107,7 +145,13 @@ class Simulation {
   void restart();
   void record(double t, const State& x);
   void apply(const Event& e);
-  bool check_departure(double t, const State& x, std::string& why) const;
+  FlightValues flight_values(double t, const State& x) const;
+  // The first criterion beyond its bound at (t, x), or -1.
+  int departed_criterion(double t, const State& x) const;
+  int first_beyond(const FlightValues& f) const;
+  // A departure found at t_hi: its time (the earliest crossing after the last instant checked
+  // clear) and reason are stored and the run is over.
+  void record_departure(double t_hi, const State& x_hi);
 
   std::shared_ptr<const Plant> plant_;
   GustField gust_;
@@ -125,6 +169,8 @@ class Simulation {
   SolverStats stats_;
   bool done_ = false;
   double end_checked_ = -1.0;    // last step end checked for a departure [s]
+  double clear_time_ = 0.0;      // last instant checked and found within every bound [s]
+  DepartureBounds bounds_;
   std::shared_ptr<Stepper> stepper_;
 };
 

@@ -243,6 +243,24 @@ std::vector<Key> make_table_keys() {
        .min = 0.1, .max = 10, .display = "deg/s", .num = FP_NUM(run.q_limit)},
       {.name = "run.min_airspeed_ratio", .meaning = "airspeed below this fraction of the trim speed counts as departed",
        .min = 0.05, .max = 0.95, .num = FP_NUM(run.min_airspeed_ratio)},
+      {.name = "run.max_airspeed_ratio",
+       .meaning = "airspeed above this multiple of the trim speed counts as departed (overspeed) when the aircraft "
+                  "file states no envelope.max_speed; with one, above envelope.max_speed",
+       .min = 1.05, .max = 20, .num = FP_NUM(run.max_airspeed_ratio)},
+      {.name = "run.floor_altitude", .dim = Dim::length,
+       .meaning = "altitude below which the airplane has departed (0: the ground of the flat-Earth model); at most "
+                  "the condition's altitude",
+       .min = -1000, .max = 30000, .num = FP_NUM(run.floor_altitude)},
+      {.name = "run.theta_limit", .dim = Dim::angle, .meaning = "pitch attitude beyond which the airplane has departed",
+       .min = 5.0 * units::deg, .max = 180.0 * units::deg, .display = "deg", .num = FP_NUM(run.theta_limit)},
+      {.name = "run.load_factor_max",
+       .meaning = "load factor above which the airplane has departed (default: ultimate, 1.5 x 3.8, of the normal "
+                  "category)",
+       .min = 1.1, .max = 20, .num = FP_NUM(run.load_factor_max)},
+      {.name = "run.load_factor_min",
+       .meaning = "load factor below which the airplane has departed (default: ultimate, 1.5 x -1.52, of the normal "
+                  "category)",
+       .min = -20, .max = 0.9, .num = FP_NUM(run.load_factor_min)},
       {.name = "run.controls", .kind = Kind::choice,
        .meaning = "cases to run: stick held, stick free, or both side by side (irreversible circuit: held only)",
        .choices = {"held", "free", "both"},

@@ -8,6 +8,7 @@
 // the default cases of an irreversible circuit) and validate() checks the relations between
 // keys and asks the model whether the airplane is physically possible.
 #include "scenario/scenario.hpp"
+#include "scenario/gust_timing.hpp"
 
 #include <algorithm>
 #include <charconv>
@@ -368,7 +369,7 @@ void sort_events(Scenario& s) {
 // the CG is at X = V cos(gamma) t, so the leading edge reaches the CG at t when
 // start = (V cos(gamma) + front_speed) t.
 void derive_gust_starts(Scenario& s) {
-  const double closing = s.condition.airspeed * std::cos(s.condition.flight_path) + s.gust_front_speed;
+  const double closing = gust_closing_speed(s);
   for (std::size_t i = 0; i < s.gusts.size() && i < s.gust_start_times.size(); ++i)
     if (s.gust_start_times[i]) s.gusts[i].start = closing * *s.gust_start_times[i];
 }

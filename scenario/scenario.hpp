@@ -57,6 +57,17 @@ struct RunSettings {
   double alpha_limit = 0.35;     // |alpha| beyond which the airplane has departed [rad] (0.1..1.5)
   double q_limit = 2.0;          // |q| beyond which the airplane has departed [rad/s] (0.1..10)
   double min_airspeed_ratio = 0.5; // airspeed below this fraction of trim = departed [-] (0.05..0.95)
+  // Further departure bounds (run/run.hpp "Departure criteria"; DEVELOPERS.md "Run verdicts").
+  // Airspeeds are the air-relative true airspeed the CSV prints.
+  double max_airspeed_ratio = 2.0; // above this multiple of trim = departed (overspeed), when the
+                                   // aircraft file states no envelope.max_speed [-] (1.05..20)
+  double floor_altitude = 0.0;   // altitude below which the airplane has departed (the ground of the
+                                 // flat-Earth model at 0) [m] (-1000..30000)
+  double theta_limit = 1.0471975511965976;  // |pitch attitude| beyond which departed [rad] (5..180 deg)
+  double load_factor_max = 5.7;  // load factor above which departed [-] (1.1..20)
+  double load_factor_min = -2.28; // load factor below which departed [-] (-20..0.9)
+  double dive_speed = 0.0;       // not a key: envelope.max_speed, copied in by run_settings()
+                                 // (run/run.hpp); 0 = use max_airspeed_ratio [m/s]
   ControlsChoice controls = ControlsChoice::both;
   double let_go_time = 0.0;      // free case: time the pilot lets go [s] (0..duration)
 };

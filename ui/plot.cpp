@@ -1,5 +1,6 @@
 // plot.cpp — see plot.hpp.
 #include "ui/plot.hpp"
+#include "util/ticks.hpp"
 
 #include <algorithm>
 #include <cstdint>
@@ -182,24 +183,9 @@ std::vector<double> nice_ticks(double lo, double hi, int max_ticks, double* step
     if (step_out) *step_out = 1.0;
     return ticks;
   }
-  max_ticks = std::max(max_ticks, 2);
-  const double raw = (hi - lo) / max_ticks;
-  const double mag = std::pow(10.0, std::floor(std::log10(raw)));
-  double step = mag;
-  for (double m : {1.0, 2.0, 5.0, 10.0}) {
-    step = m * mag;
-    if (step >= raw) break;
-  }
+  const double step = fp::tick_step(hi - lo, std::max(max_ticks, 2), fp::TickFit::at_most);  // util/ticks.hpp
   if (step_out) *step_out = step;
-  const double first = std::ceil(lo / step - 1e-9);
-  for (double k = first;; k += 1.0) {
-    double v = k * step;
-    if (v > hi + 1e-9 * step) break;
-    if (std::abs(v) < 1e-12 * step) v = 0.0;  // no "-0"
-    ticks.push_back(v);
-    if (ticks.size() > 1000) break;
-  }
-  return ticks;
+  return fp::tick_values(lo, hi, step);
 }
 
 std::string tick_text(double v, double step) {

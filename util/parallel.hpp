@@ -37,7 +37,7 @@ struct Progress {
       return;
     }
     std::lock_guard<std::mutex> lk(m);
-    const long d = ++done;
+    const long d = std::min(++done, total);  // an estimated total is never overrun on screen
     const double el = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
     const double rate = el > 0 ? d / el : 0.0;
     const double left = rate > 0 ? (total - d) / rate : 0.0;
