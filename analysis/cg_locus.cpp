@@ -15,6 +15,8 @@ std::vector<LocusPoint> cg_root_locus(const Scenario& s, double cg_from, double 
       set_value(c, "mass.cg", p.cg, "CG sweep");
       validate(c);
       p.modes = compute_modes(c);
+      p.held_root = deciding_root(p.modes.held);
+      if (p.modes.has_free) p.free_root = deciding_root(p.modes.free);
       p.ok = true;
     } catch (const ScenarioError& e) {
       p.error = e.what();
@@ -27,15 +29,9 @@ std::vector<LocusPoint> cg_root_locus(const Scenario& s, double cg_from, double 
 }
 
 double largest_real_root(const std::vector<Mode>& modes, std::string* mode) {
-  double best = -std::numeric_limits<double>::infinity();
-  for (const Mode& m : modes) {
-    if (m.oscillatory || m.name == "height") continue;
-    if (m.root.real() > best) {
-      best = m.root.real();
-      if (mode) *mode = m.name;
-    }
-  }
-  return best;
+  const StabilityRoot r = deciding_root(modes);
+  if (mode) *mode = r.mode;
+  return r.found ? r.root.real() : -std::numeric_limits<double>::infinity();
 }
 
 }  // namespace fp

@@ -4,9 +4,9 @@
 // Each point re-trims the airplane at its CG and takes the modes held and free exactly as
 // compute_modes (analysis/margins_modes.hpp) does for the scenario itself.
 //
-// The divergence indicator is the largest purely real root, leaving out the "height" mode
-// (the near-zero root that the density gradient gives, not a pitch divergence); it counts as
-// a divergence above kDivergenceThreshold, well above the finite-difference noise of the
+// The divergence indicator is the deciding root of model/linear.hpp deciding_root (the one
+// definition for every consumer: roots neutral by construction are set aside there); it counts
+// as a divergence above kDivergenceThreshold, well above the finite-difference noise of the
 // Jacobian.
 #pragma once
 
@@ -26,13 +26,14 @@ struct LocusPoint {
   bool ok = false;       // trimmed and linearised
   std::string error;     // why not (the key table's or the trim's message)
   ModesResult modes;     // held, and free when has_free
+  StabilityRoot held_root, free_root;  // deciding roots (free: found = false when !has_free)
 };
 
 // Modes at `points` CG positions evenly from cg_from to cg_to.
 std::vector<LocusPoint> cg_root_locus(const Scenario& s, double cg_from, double cg_to, int points);
 
-// The largest purely real root other than the height mode [1/s] (-inf when there is none);
-// `mode` receives its name.
+// Real part of the deciding root (deciding_root) [1/s] (-inf when there is none); `mode`
+// receives its name.
 double largest_real_root(const std::vector<Mode>& modes, std::string* mode = nullptr);
 
 }  // namespace fp

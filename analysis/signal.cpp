@@ -61,6 +61,23 @@ double growth_rate(const std::vector<double>& y, double dt, int max_order, doubl
   return std::numeric_limits<double>::quiet_NaN();
 }
 
+double growth_rate_about_offset(const std::vector<double>& y, double dt, int max_order, double min_share) {
+  if (y.size() < 3) return std::numeric_limits<double>::quiet_NaN();
+  std::vector<double> d(y.size() - 1);
+  for (std::size_t k = 0; k + 1 < y.size(); ++k) d[k] = y[k + 1] - y[k];
+  auto modes = matrix_pencil(d, dt, max_order);
+  double amax = 0.0;
+  for (auto& m : modes) {
+    const double zm1 = std::abs(std::exp(m.s * dt) - 1.0);
+    m.amplitude = zm1 > 0 ? m.amplitude / zm1 : 0.0;
+    amax = std::max(amax, m.amplitude);
+  }
+  if (amax <= 0.0) return std::numeric_limits<double>::quiet_NaN();
+  for (const auto& m : modes)
+    if (m.amplitude >= min_share * amax) return m.s.real();
+  return std::numeric_limits<double>::quiet_NaN();
+}
+
 double log_decrement_damping(const std::vector<double>& t, const std::vector<double>& y, double t_from) {
   if (y.size() < 5) return std::numeric_limits<double>::quiet_NaN();
   const double yf = y.back();

@@ -30,6 +30,13 @@ std::vector<PencilMode> matrix_pencil(const std::vector<double>& y, double dt, i
 // largest amplitude [1/s]; NaN when the signal is (numerically) zero.
 double growth_rate(const std::vector<double>& y, double dt, int max_order = 8, double min_share = 0.02);
 
+// The same about a constant offset: y_k = c + sum a_i z_i^k. The first difference
+// d_k = y_{k+1} - y_k = sum a_i (z_i - 1) z_i^k has the same z_i and no constant, so the pencil
+// of d gives the z_i, and the amplitudes in y are those of d divided by |z_i - 1|. A constant
+// is no motion (it neither grows nor decays: an airplane with a neutral altitude root settles
+// at a neighbouring trim), so it never counts.
+double growth_rate_about_offset(const std::vector<double>& y, double dt, int max_order = 8, double min_share = 0.02);
+
 // Logarithmic decrement damping ratio from successive peaks of an oscillation about its final
 // value (common practice: zeta = d / sqrt(4 pi^2 + d^2), d = ln(x_k / x_{k+1})); NaN when fewer
 // than two peaks.

@@ -13,6 +13,7 @@
 #include <thread>
 #include <unistd.h>
 
+#include <boost/math/tools/roots.hpp>
 #include <nlohmann/json.hpp>
 
 #include "model/linear.hpp"
@@ -70,25 +71,18 @@ double disturbance_end(const Scenario& s) {
   return t;
 }
 
-// The scenario with a disturbance: its own, or a small vertical 1-cosine gust when it has
-// none (1 m/s, gradient distance 10 chords, starting at 1 s), so that the motion is excited.
-Scenario with_disturbance(Scenario s) {
-  if (s.gusts.empty() && s.events.empty()) {
-    DiscreteGust g;
-    g.shape = GustShape::one_minus_cosine;
-    g.component = GustComponent::vertical;
-    g.length = 10.0 * s.airplane.wing.mac;
-    g.amplitude = 1.0;
-    g.start = s.condition.airspeed * std::cos(s.condition.flight_path) * 1.0;
-    s.gusts.push_back(g);
-  }
-  return s;
-}
-
-double max_real(const std::vector<Mode>& ms) {
-  double m = -std::numeric_limits<double>::infinity();
-  for (const auto& x : ms) m = std::max(m, x.root.real());
-  return m;
+// The probe of the time-domain boundary: a small vertical 1-cosine gust (0.5 m/s, gradient
+// distance 10 chords) that reaches the wing 1 s after the scenario's own disturbances are over
+// (at 1 s when it has none).
+DiscreteGust probe_gust(const Scenario& s) {
+  DiscreteGust g;
+  g.shape = GustShape::one_minus_cosine;
+  g.component = GustComponent::vertical;
+  g.length = 10.0 * s.airplane.wing.mac;
+  g.amplitude = 0.5;
+  const double V = s.condition.airspeed * std::cos(s.condition.flight_path);
+  g.start = V * (disturbance_end(s) + 1.0);
+  return g;
 }
 
 const Mode* find_mode(const std::vector<Mode>& ms, const char* name) {
@@ -103,40 +97,72 @@ Scenario at_cg(const Scenario& base, double cg) {
   return s;
 }
 
-// Largest real eigenvalue at a CG (retrimmed), held or free.
-double eig_at(const Scenario& base, double cg, bool free) {
+// The deciding root (model/linear.hpp deciding_root) at a CG (retrimmed), held or free.
+StabilityRoot root_at(const Scenario& base, double cg, bool free) {
   const Scenario s = at_cg(base, cg);
   const auto plant = scenario_plant(s);
   const Trim t = scenario_trim(*plant, s);
   Controls c = t.controls;
   c.stick = free ? Stick::free : Stick::held;
   c.pilot_force = 0.0;
-  return max_real(modes(linearise(*plant, t.x, c)));
+  return deciding_root(modes(linearise(*plant, t.x, c)));
 }
 
-// Zero crossing of f over the CG grid (first sign change from <= 0 to > 0, in increasing
-// CG), refined by bisection. NaN when there is none.
+// One-line summary of the roots set aside, "" when none.
+std::string set_aside_text(const StabilityRoot& r) {
+  std::string o;
+  for (const auto& a : r.set_aside)
+    o += (o.empty() ? "" : "; ") + a.mode + " " + fixed(a.root.real(), 6) + " /s set aside: " + a.reason;
+  return o;
+}
+
+struct Crossing {
+  double cg = nan_;    // NaN when none
+  std::string error;   // why the refinement failed ("" when it did not, or when there is no bracket)
+};
+
+// Zero crossing of f over the CG grid (first sign change from <= 0 to > 0, in increasing CG),
+// refined by Boost.Math: TOMS 748 (Alefeld, Potra and Shi 1995) for a smooth f, bisection for a
+// noisy one (the time-domain rate). The CG tolerance is 1e-5 MAC; a refinement that does not
+// reach it in max_iter evaluations, or an f that throws, is an error, never a boundary.
 template <class F>
-double crossing(const std::vector<double>& cg, const std::vector<double>& v, F&& f, int iterations) {
+Crossing crossing(const std::vector<double>& cg, const std::vector<double>& v, F&& f, bool smooth,
+                  std::uintmax_t max_iter) {
+  Crossing c;
   for (std::size_t i = 1; i < cg.size(); ++i) {
     if (!std::isfinite(v[i - 1]) || !std::isfinite(v[i])) continue;
-    if (v[i - 1] <= 0.0 && v[i] > 0.0) {
-      double a = cg[i - 1], b = cg[i];
-      for (int k = 0; k < iterations; ++k) {
-        const double m = 0.5 * (a + b);
-        double fm;
-        try {
-          fm = f(m);
-        } catch (...) {
-          break;
-        }
-        if (!std::isfinite(fm)) break;
-        if (fm > 0.0) b = m; else a = m;
-      }
-      return 0.5 * (a + b);
+    if (!(v[i - 1] <= 0.0 && v[i] > 0.0)) continue;
+    auto g = [&](double x) {
+      const double y = f(x);
+      if (!std::isfinite(y)) throw std::runtime_error("no rate could be read at CG " + fixed(x, 5));
+      return y;
+    };
+    const double tol_cg = 1e-5;
+    auto tol = [&](double a, double b) { return std::abs(b - a) <= tol_cg; };
+    std::uintmax_t it = max_iter;
+    try {
+      std::pair<double, double> ab;
+      if (smooth && v[i - 1] < 0.0)
+        ab = boost::math::tools::toms748_solve(g, cg[i - 1], cg[i], v[i - 1], v[i], tol, it);
+      else
+        ab = boost::math::tools::bisect(g, cg[i - 1], cg[i], tol, it);
+      if (!tol(ab.first, ab.second))
+        c.error = "root finding did not converge in " + std::to_string(it) + " evaluations: CG between " +
+                  fixed(ab.first, 5) + " and " + fixed(ab.second, 5);
+      else
+        c.cg = 0.5 * (ab.first + ab.second);
+    } catch (const std::exception& e) {
+      c.error = "root finding failed between CG " + fixed(cg[i - 1], 4) + " and " + fixed(cg[i], 4) + ": " + e.what();
+    } catch (const TrimError& e) {
+      c.error = "root finding failed: " + e.message;
+    } catch (const ScenarioError& e) {
+      c.error = "root finding failed: " + e.what();
+    } catch (const NumericalFailure& e) {
+      c.error = "root finding failed: numerical failure at t = " + fixed(e.time, 3) + " s: " + e.message;
     }
+    return c;
   }
-  return nan_;
+  return c;
 }
 
 }  // namespace
@@ -186,41 +212,72 @@ SampleSpec parse_sample(const Scenario& s, const std::string& text) {
 
 namespace {
 
-// Growth rate of the slow motion in a trace: the airspeed deviation from trim once the
-// disturbance is over (after t0) and while the motion is still small, decimated to about 300
-// samples, through the matrix pencil.
-double growth_from_trace(const Trace& tr, const Trim& t, double t0) {
-  if (tr.size() < 2) return nan_;
-  const double dt = tr.ch[ch_time][1] - tr.ch[ch_time][0];
+// The small-motion part of a response for the matrix pencil: y_i = V_a(t_i) - reference, where
+// the reference is the run `b` (same time grid) or the trim airspeed; from t0 on, while |y| stays
+// below 5 % of the trim airspeed and the angle of attack within 2 deg of the reference,
+// decimated to about 300 samples.
+struct Samples {
   std::vector<double> y;
-  for (std::size_t i = 0; i < tr.size(); ++i) {
-    if (tr.ch[ch_time][i] < t0) continue;
-    const double dV = tr.ch[ch_airspeed][i] - t.airspeed;
-    const double da = tr.ch[ch_alpha][i] - t.alpha;
+  double dt = 0;
+};
+Samples small_motion(const Trace& a, const Trace* b, const Trim& t, double t0) {
+  Samples s;
+  const std::size_t n = b ? std::min(a.size(), b->size()) : a.size();
+  if (n < 2) return s;
+  std::vector<double> y;
+  for (std::size_t i = 0; i < n; ++i) {
+    if (a.ch[ch_time][i] < t0) continue;
+    const double dV = a.ch[ch_airspeed][i] - (b ? b->ch[ch_airspeed][i] : t.airspeed);
+    const double da = a.ch[ch_alpha][i] - (b ? b->ch[ch_alpha][i] : t.alpha);
     if (std::abs(dV) > 0.05 * t.airspeed || std::abs(da) > 2.0 * units::deg) break;
     y.push_back(dV);
   }
   const std::size_t k = std::max<std::size_t>(1, y.size() / 300);
-  std::vector<double> yd;
-  for (std::size_t i = 0; i < y.size(); i += k) yd.push_back(y[i]);
-  if (yd.size() < 20) return nan_;
-  return growth_rate(yd, dt * static_cast<double>(k), 6);
+  for (std::size_t i = 0; i < y.size(); i += k) s.y.push_back(y[i]);
+  s.dt = (a.ch[ch_time][1] - a.ch[ch_time][0]) * static_cast<double>(k);
+  return s;
 }
+
+double growth_of(const Samples& s) {
+  if (s.y.size() < 20) return nan_;
+  return growth_rate_about_offset(s.y, s.dt, 6);
+}
+
+// Growth rate in a trace of the scenario's own run (sweep --run): the airspeed deviation from
+// trim after t0 (the forced part of a persistent disturbance is not removed here; the boundary
+// uses time_domain_growth).
+double growth_from_trace(const Trace& tr, const Trim& t, double t0) { return growth_of(small_motion(tr, nullptr, t, t0)); }
 
 }  // namespace
 
-double time_domain_growth(const Scenario& s0, bool free, double seconds) {
-  const Scenario s = with_disturbance(s0);
+// Time-domain growth rate of the airplane's own motion (see sweep.hpp and DEVELOPERS.md,
+// "Time-domain divergence boundary"). Two runs from the same trim with the same disturbances
+// and events: the scenario as it is (a), and the scenario with a small probe gust after its
+// own disturbances (b). Their airspeed difference b - a is, to first order in the probe, the
+// free response to the probe about the disturbed motion: the forced part (a persistent
+// updraft, the climb and the density drift it brings, turbulence with the same seed) is the
+// same in both and cancels. The matrix pencil (Hua and Sarkar 1990) reads the rates of that
+// difference about a constant offset (analysis/signal.hpp growth_rate_about_offset): a
+// neutral root (a neighbouring trim at another altitude) leaves a constant, which is no growth.
+double time_domain_growth(const Scenario& s, bool free, double seconds, double tol_scale) {
   const auto plant = scenario_plant(s);
   const Trim t = scenario_trim(*plant, s);
   RunSettings rs = s.run;
   rs.duration = seconds;
   rs.output_step = 0.05;
-  rs.rel_tol = std::min(rs.rel_tol, 1e-9);
-  rs.abs_tol = std::min(rs.abs_tol, 1e-10);
-  Simulation sim(plant, scenario_gust_field(s), t, rs, RunCase{free ? Stick::free : Stick::held, 0.0}, s.events);
-  sim.run_to_end();
-  return growth_from_trace(sim.trace(), t, disturbance_end(s) + 2.0);
+  rs.rel_tol = 1e-9 * tol_scale;
+  rs.abs_tol = 1e-10 * tol_scale;
+  const RunCase rc{free ? Stick::free : Stick::held, 0.0};
+  Scenario probed = s;
+  probed.gusts.push_back(probe_gust(s));
+  Simulation b(plant, scenario_gust_field(probed), t, rs, rc, s.events);
+  b.run_to_end();
+  const double t0 = disturbance_end(probed) + 2.0;
+  const bool undisturbed = s.gusts.empty() && s.events.empty() && s.turbulence.model == TurbulenceKind::none;
+  if (undisturbed) return growth_of(small_motion(b.trace(), nullptr, t, t0));
+  Simulation a(plant, scenario_gust_field(s), t, rs, rc, s.events);
+  a.run_to_end();
+  return growth_of(small_motion(b.trace(), &a.trace(), t, t0));
 }
 
 PointResult evaluate_point(const Scenario& base, const std::vector<std::string>& keys,
@@ -251,7 +308,10 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
     Controls c = t.controls;
     c.stick = Stick::held;
     const auto mh = modes(linearise(*plant, t.x, c));
-    r.max_real_held = max_real(mh);
+    const StabilityRoot dh = deciding_root(mh);
+    r.max_real_held = dh.found ? dh.root.real() : nan_;
+    r.mode_held = dh.mode;
+    r.set_aside_held = set_aside_text(dh);
     const Mode* sp = find_mode(mh, "short period");
     r.sp_damping_held = sp ? sp->damping : nan_;
     r.sp_frequency_held = sp ? sp->frequency : nan_;
@@ -260,7 +320,10 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
       c.stick = Stick::free;
       c.pilot_force = 0;
       const auto mf = modes(linearise(*plant, t.x, c));
-      r.max_real_free = max_real(mf);
+      const StabilityRoot df = deciding_root(mf);
+      r.max_real_free = df.found ? df.root.real() : nan_;
+      r.mode_free = df.mode;
+      r.set_aside_free = set_aside_text(df);
       const Mode* spf = find_mode(mf, "short period");
       r.sp_damping_free = spf ? spf->damping : nan_;
       r.sp_frequency_free = spf ? spf->frequency : nan_;
@@ -294,15 +357,91 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
     r.reason = e.message;
   } catch (const NumericalFailure& e) {
     r.reason = "numerical failure at t = " + fixed(e.time, 3) + " s: " + e.message;
+  } catch (const std::exception& e) {
+    r.reason = std::string("failed: ") + e.what();
+  } catch (...) {
+    r.reason = "failed: unknown exception";
+  }
+  if (!r.ok) {  // a failed row carries its inputs and reason only
+    PointResult f;
+    f.index = r.index;
+    f.inputs = r.inputs;
+    f.reason = r.reason;
+    return f;
   }
   return r;
 }
+
+namespace {
+
+// Does the time-domain boundary hold when the run length or the integration tolerance changes
+// tenfold? The growth rate must keep its sign 0.0025 MAC (half the agreement goal) either side
+// of it with the tolerance x10 and /10 and with the run ten times as long.
+std::string time_domain_check(const Scenario& base, bool free, double cg, double T) {
+  const double d = 0.0025;
+  struct Variant { double seconds, tol; const char* what; };
+  const Variant vs[] = {{T, 10.0, "tolerance x10"}, {T, 0.1, "tolerance /10"}, {10.0 * T, 1.0, "run length x10"}};
+  std::string moved;
+  for (const auto& v : vs) {
+    const double lo = time_domain_growth(at_cg(base, cg - d), free, v.seconds, v.tol);
+    const double hi = time_domain_growth(at_cg(base, cg + d), free, v.seconds, v.tol);
+    if (!(lo <= 0.0 && hi > 0.0)) moved += std::string(moved.empty() ? "" : ", ") + v.what;
+  }
+  if (moved.empty()) return "holds within 0.25 % MAC with the tolerance x10 and /10 and the run length x10";
+  return "NOT robust: moves by more than 0.25 % MAC with " + moved;
+}
+
+// The eigenvalue crossing of one side, and what decides there.
+void eigen_side(const Scenario& base, const std::vector<double>& cg, const std::vector<double>& ev, bool free,
+                Boundary& b, std::string& err) {
+  const Crossing c = crossing(cg, ev, [&](double x) {
+    const StabilityRoot s = root_at(base, x, free);
+    return s.found ? s.root.real() : nan_;
+  }, true, 100);
+  b.eigenvalue = c.cg;
+  if (!c.error.empty()) err += "eigenvalue: " + c.error + ". ";
+  if (!std::isfinite(c.cg)) return;
+  // the root that crosses, read just aft of the crossing
+  const StabilityRoot s = root_at(base, c.cg + 1e-4, free);
+  b.crossing_mode = s.mode;
+  b.set_aside = set_aside_text(s);
+  if (s.oscillatory) {
+    b.closed_form_applies = false;
+    b.closed_form_note = "the root that crosses is a complex pair (" + s.mode +
+                         "): an oscillatory divergence, which the static (neutral-point) formula does not predict";
+  }
+}
+
+// The time-domain crossing of one side: growth rates on the grid near the eigenvalue bracket
+// (the sign far from it is not in doubt), then the crossing refined by bisection with fresh runs.
+void time_side(const Scenario& base, const std::vector<double>& cg, const std::vector<double>& ev, bool free,
+               double T, Boundary& b, std::string& err) {
+  std::vector<double> g(cg.size(), nan_);
+  for (std::size_t i = 0; i < cg.size(); ++i) {
+    const bool near = (i + 1 < cg.size() && ev[i] <= 0 && ev[i + 1] > 0) || (i > 0 && ev[i - 1] <= 0 && ev[i] > 0);
+    if (!near) { g[i] = ev[i] > 0 ? 1.0 : -1.0; continue; }
+    try {
+      g[i] = time_domain_growth(at_cg(base, cg[i]), free, T);
+    } catch (const NumericalFailure& e) {
+      err += "numerical failure at CG " + fixed(cg[i], 4) + ", t = " + fixed(e.time, 3) + " s: " + e.message + ". ";
+    } catch (const TrimError& e) {
+      err += "CG " + fixed(cg[i], 4) + ": " + e.message + ". ";
+    }
+  }
+  const Crossing c = crossing(cg, g, [&](double x) { return time_domain_growth(at_cg(base, x), free, T); }, false, 60);
+  b.time_domain = c.cg;
+  if (!c.error.empty()) err += c.error + ". ";
+  if (std::isfinite(c.cg)) b.time_domain_check = time_domain_check(base, free, c.cg, T);
+}
+
+}  // namespace
 
 void compute_boundary(SweepResult& r, int jobs) {
   r.has_boundary = false;
   if (r.spec.vary.empty() || !is_cg_key(r.spec.vary[0].key) || r.spec.vary.size() != 1) return;
   Scenario base = load_scenario(r.spec.scenario, r.spec.set);
   r.has_boundary = true;
+  r.held = r.free = Boundary{};
   std::vector<double> cg, eh, ef;
   for (const auto& p : r.points) {
     if (!p.ok) continue;
@@ -320,31 +459,35 @@ void compute_boundary(SweepResult& r, int jobs) {
   for (int i = 0; i < 5; ++i) happ = closed_form(at_cg(base, happ).airplane, base.condition).np_apparent;
   r.free.closed_form = rev ? happ : nan_;
   r.free.closed_form_aerodynamic = rev ? cf0.np_free : nan_;
-  // eigenvalue crossing, and the time-domain growth rate crossing, each refined by bisection
-  double res[4] = {nan_, nan_, nan_, nan_};
+  r.held.eigenvalue = r.held.time_domain = r.free.eigenvalue = r.free.time_domain = nan_;
   // near the boundary the slow root is a few thousandths per second: two minutes of response
-  // are needed to read it (60 s biases the matrix-pencil estimate by about +0.001/s)
+  // are needed to read it
   const double T = std::max(r.spec.run_seconds, r.spec.boundary_run_seconds);
-  parallel_for(rev ? 4 : 2, jobs, [&](long k) {
+  // four independent tasks (eigenvalue and time domain, held and free); a task's failure is
+  // kept as its side's error, never thrown
+  std::vector<long> tasks = rev ? std::vector<long>{0, 1, 2, 3} : std::vector<long>{0, 2};
+  if (!r.spec.time_domain) tasks.resize(rev ? 2 : 1);
+  std::string errs[4];
+  parallel_for(static_cast<long>(tasks.size()), jobs, [&](long i) {
+    const long k = tasks[static_cast<std::size_t>(i)];
     const bool free = k % 2 == 1;
-    if (k < 2) {
-      res[k] = crossing(cg, free ? ef : eh, [&](double x) { return eig_at(base, x, free); }, 30);
-    } else {
-      // growth rates on the grid near the eigenvalue bracket (all grid points when no bracket)
-      std::vector<double> g(cg.size(), nan_);
-      for (std::size_t i = 0; i < cg.size(); ++i) {
-        const auto& ev = free ? ef : eh;
-        const bool near = (i + 1 < cg.size() && ev[i] <= 0 && ev[i + 1] > 0) || (i > 0 && ev[i - 1] <= 0 && ev[i] > 0);
-        if (!near) { g[i] = ev[i] > 0 ? 1.0 : -1.0; continue; }  // sign from far away is not in doubt
-        g[i] = time_domain_growth(at_cg(base, cg[i]), free, T);
-      }
-      res[k] = crossing(cg, g, [&](double x) { return time_domain_growth(at_cg(base, x), free, T); }, 16);
+    Boundary& b = free ? r.free : r.held;
+    std::string& err = errs[k];
+    try {
+      if (k < 2) eigen_side(base, cg, free ? ef : eh, free, b, err);
+      else time_side(base, cg, free ? ef : eh, free, T, b, err);
+    } catch (const std::exception& e) {
+      err += std::string(k < 2 ? "eigenvalue: " : "time domain: ") + e.what() + ". ";
+    } catch (const NumericalFailure& e) {
+      err += "numerical failure at t = " + fixed(e.time, 3) + " s: " + e.message + ". ";
+    } catch (const TrimError& e) {
+      err += e.message + ". ";
+    } catch (const ScenarioError& e) {
+      err += e.what() + ". ";
     }
   });
-  r.held.eigenvalue = res[0];
-  r.free.eigenvalue = res[1];
-  r.held.time_domain = res[2];
-  r.free.time_domain = res[3];
+  r.held.error = errs[0] + (errs[2].empty() ? "" : "time domain: " + errs[2]);
+  r.free.error = errs[1] + (errs[3].empty() ? "" : "time domain: " + errs[3]);
 }
 
 SweepResult run_sweep(const SweepSpec& spec, int jobs, bool progress) {
@@ -394,6 +537,14 @@ SweepResult run_sweep(const SweepSpec& spec, int jobs, bool progress) {
         evaluate_point(base, r.input_keys, grid[static_cast<std::size_t>(i)], spec.run_seconds, i);
     pr.tick();
   });
+  if (!r.points.empty() && std::none_of(r.points.begin(), r.points.end(), [](const PointResult& p) { return p.ok; })) {
+    std::string hint;
+    for (const auto& k : r.input_keys)
+      if (is_cg_key(k)) hint = " (cg is a fraction of the MAC aft of its leading edge: 0.30 means 30 % MAC)";
+    throw ScenarioError{"", 0, 0, r.input_keys.empty() ? "" : r.input_keys[0],
+                        "every one of the " + std::to_string(r.points.size()) + " sweep points failed" + hint +
+                            "; the first: " + r.points.front().reason};
+  }
   if (spec.shard_n == 1 && spec.find_boundary) compute_boundary(r, jobs);
   return r;
 }

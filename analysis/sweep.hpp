@@ -14,9 +14,11 @@
 //
 // Boundary (when the CG is varied): for the stick held and free, the CG at which the airplane
 // starts to diverge, three ways: closed form (h_n held; the apparent free point h_app free),
-// eigenvalue (largest real eigenvalue crossing zero, bracketed on the grid then bisected),
-// time domain (growth rate of the slow motion from the response, by the matrix pencil, crossing
-// zero, bracketed then bisected).
+// eigenvalue (the deciding root of model/linear.hpp deciding_root crossing zero, bracketed on
+// the grid then refined by Boost.Math TOMS 748), time domain (growth rate of the airplane's own
+// motion read from two runs, by the matrix pencil, crossing zero, bracketed then bisected; see
+// time_domain_growth). When the root that crosses is a complex pair the closed form, a static
+// criterion, does not apply and is reported as such.
 #pragma once
 
 #include <cstdint>
@@ -52,6 +54,7 @@ struct SweepSpec {
   double boundary_run_seconds = 120; // runs for the time-domain boundary (at least this long)
   int shard_k = 0, shard_n = 1;
   bool find_boundary = true;         // refine the divergence boundary when the CG is varied
+  bool time_domain = true;           // with the time-domain method (runs; the slow part)
 };
 
 // Parse "KEY=FROM:TO:STEP" (values may carry units: "cg=0.30:0.42:0.005",
@@ -69,7 +72,9 @@ struct PointResult {
   double np_fixed_cf = 0, np_free_cf = 0, np_apparent_cf = 0, np_fixed = 0, np_free = 0;
   double cg = 0;
   double force_gradient = 0;         // [N/(m/s)] model, tab fixed
-  double max_real_held = 0, max_real_free = 0;       // largest real eigenvalue [1/s]
+  double max_real_held = 0, max_real_free = 0;       // real part of the deciding root [1/s]
+  std::string mode_held, mode_free;                   // its mode
+  std::string set_aside_held, set_aside_free;         // roots set aside and why ("" when none)
   double sp_damping_held = 0, sp_damping_free = 0;   // NaN when no short-period pair
   double sp_frequency_held = 0, sp_frequency_free = 0;
   bool ran = false;
@@ -83,6 +88,12 @@ struct PointResult {
 struct Boundary {
   double closed_form = 0, eigenvalue = 0, time_domain = 0;  // fractions of MAC (NaN: not found)
   double closed_form_aerodynamic = 0;                       // free: h'_n without the speed term
+  bool closed_form_applies = true;   // false when the crossing root is a complex pair
+  std::string closed_form_note;      // why not, when it does not apply
+  std::string crossing_mode;         // the deciding root's mode just aft of the eigenvalue crossing
+  std::string set_aside;             // roots set aside there, with the reason
+  std::string time_domain_check;     // whether the time-domain boundary holds for tenfold settings
+  std::string error;                 // why a method failed ("" when none did)
 };
 
 struct SweepResult {
@@ -114,7 +125,11 @@ Band band_of(std::vector<double> v);
 PointResult evaluate_point(const Scenario& base, const std::vector<std::string>& keys,
                            const std::vector<double>& values, double run_seconds, long index);
 
-// Growth rate of the slow motion after a disturbance, held or free, at a scenario (time domain).
-double time_domain_growth(const Scenario& s, bool free, double seconds);
+// Growth rate of the airplane's own motion [1/s], held or free, at a scenario (time domain): the
+// difference between a run with a small probe gust after the scenario's own disturbances and a
+// run without it, read by the matrix pencil about a constant offset (see sweep.cpp).
+// `tol_scale` multiplies the integration tolerances (1e-9 relative, 1e-10 absolute).
+// Throws NumericalFailure, TrimError.
+double time_domain_growth(const Scenario& s, bool free, double seconds, double tol_scale = 1.0);
 
 }  // namespace fp

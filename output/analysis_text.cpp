@@ -135,11 +135,23 @@ json modes_json(const ModesResult& r) {
              {"cycles_to_tenth", m.cycles_to_tenth > 0 ? json(m.cycles_to_tenth) : json(nullptr)}};
       if (m.root.real() < 0) j["time_to_half_s"] = m.time_to_half;
       if (m.root.real() > 0) j["time_to_double_s"] = m.time_to_double;
+      if (m.neutral) j["neutral_by_construction"] = m.neutral_reason;
       a.push_back(j);
     }
     return a;
   };
-  return json{{"held", arr(r.held)}, {"free", r.has_free ? arr(r.free) : json(nullptr)}};
+  // the root that decides stability (model/linear.hpp deciding_root) and the roots set aside
+  auto dec = [](const std::vector<Mode>& ms) {
+    const StabilityRoot d = deciding_root(ms);
+    json aside = json::array();
+    for (const auto& x : d.set_aside)
+      aside.push_back({{"mode", x.mode}, {"real", x.root.real()}, {"imag", x.root.imag()}, {"reason", x.reason}});
+    return json{{"mode", d.found ? json(d.mode) : json(nullptr)}, {"real", d.found ? json(d.root.real()) : json(nullptr)},
+                {"imag", d.found ? json(d.root.imag()) : json(nullptr)}, {"stable", d.found && d.root.real() < 0},
+                {"set_aside", aside}};
+  };
+  return json{{"held", arr(r.held)}, {"free", r.has_free ? arr(r.free) : json(nullptr)},
+              {"deciding_root", {{"held", dec(r.held)}, {"free", r.has_free ? dec(r.free) : json(nullptr)}}}};
 }
 
 std::string modes_table(const ModesResult& r) {
@@ -160,12 +172,23 @@ std::string modes_table(const ModesResult& r) {
         th = fixed(m.time_to_double, 2);
         th.append(" dbl");
       }
-      std::snprintf(line, sizeof line, "  %-18s %10.4f %10.4f %9.4f %8.3f %9s %12s %9s\n", m.name.c_str(),
-                    m.root.real(), m.root.imag(), m.frequency, m.damping,
+      // a real part below 5e-5 /s in size would print as +-0.0000: it is shown in full, so that
+      // the table agrees with the sweep's figures (a slow root near a crossing is such a root)
+      char re[32];
+      if (m.root.real() != 0.0 && std::abs(m.root.real()) < 5e-5) std::snprintf(re, sizeof re, "%10.2e", m.root.real());
+      else std::snprintf(re, sizeof re, "%10.4f", m.root.real());
+      std::snprintf(line, sizeof line, "  %-18s %10s %10.4f %9.4f %8.3f %9s %12s %9s\n", m.name.c_str(),
+                    re, m.root.imag(), m.frequency, m.damping,
                     m.oscillatory ? fixed(m.period, 2).c_str() : "-", th.c_str(),
                     m.cycles_to_tenth > 0 ? fixed(m.cycles_to_tenth, 2).c_str() : "-");
       o << line;
     }
+    const StabilityRoot d = deciding_root(ms);
+    if (d.found)
+      o << "  deciding root: " << d.mode << " " << d.root.real() << " /s"
+        << (d.root.real() < 0 ? " (stable)" : " (not stable)") << "\n";
+    for (const auto& x : d.set_aside)
+      o << "  set aside: " << x.mode << " " << fixed(x.root.real(), 4) << " /s, " << x.reason << "\n";
   };
   block("Stick held:", r.held);
   if (r.has_free) block("Stick free:", r.free);

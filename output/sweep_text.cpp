@@ -1,6 +1,7 @@
 // sweep_text.cpp — sweeps as JSON (and back, for merging shards), CSV and a terminal table.
 #include "output/sweep_text.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <limits>
@@ -33,7 +34,8 @@ json band_json(const Band& b) {
 const char* kColumns[] = {"index", "ok", "reason", "cg", "trim_alpha_deg", "trim_elevator_deg", "trim_tab_deg",
                           "np_fixed_closed_form", "np_free_closed_form", "np_apparent_closed_form", "np_fixed_model",
                           "np_free_model", "static_margin_fixed", "static_margin_free", "stick_force_gradient_N_per_mps",
-                          "max_real_held_per_s", "max_real_free_per_s", "sp_damping_held", "sp_damping_free",
+                          "max_real_held_per_s", "max_real_free_per_s", "deciding_mode_held", "deciding_mode_free",
+                          "roots_set_aside_held", "roots_set_aside_free", "sp_damping_held", "sp_damping_free",
                           "sp_frequency_held_rad_s", "sp_frequency_free_rad_s", "ran", "diverged_held", "diverged_free",
                           "divergence_time_held_s", "divergence_time_free_s", "peak_dn_held", "peak_dn_free",
                           "peak_dalpha_held_deg", "peak_dalpha_free_deg", "growth_held_per_s", "growth_free_per_s"};
@@ -41,6 +43,13 @@ const char* kColumns[] = {"index", "ok", "reason", "cg", "trim_alpha_deg", "trim
 json point_json(const PointResult& p, const std::vector<std::string>& keys) {
   json in = json::object();
   for (std::size_t i = 0; i < keys.size() && i < p.inputs.size(); ++i) in[keys[i]] = p.inputs[i];
+  if (!p.ok) {  // a failed point has its inputs and reason, and nothing computed (blank, not 0)
+    json f{{"index", p.index}, {"inputs", in}, {"ok", false}, {"reason", p.reason}, {"ran", false}};
+    for (const char* c : kColumns)
+      if (!f.contains(c)) f[c] = nullptr;
+    return f;
+  }
+  auto text = [](const std::string& t) { return t.empty() ? json(nullptr) : json(t); };
   return json{{"index", p.index},
               {"inputs", in},
               {"ok", p.ok},
@@ -59,6 +68,10 @@ json point_json(const PointResult& p, const std::vector<std::string>& keys) {
               {"stick_force_gradient_N_per_mps", num(p.force_gradient)},
               {"max_real_held_per_s", num(p.max_real_held)},
               {"max_real_free_per_s", num(p.max_real_free)},
+              {"deciding_mode_held", text(p.mode_held)},
+              {"deciding_mode_free", text(p.mode_free)},
+              {"roots_set_aside_held", text(p.set_aside_held)},
+              {"roots_set_aside_free", text(p.set_aside_free)},
               {"sp_damping_held", num(p.sp_damping_held)},
               {"sp_damping_free", num(p.sp_damping_free)},
               {"sp_frequency_held_rad_s", num(p.sp_frequency_held)},
@@ -94,6 +107,11 @@ PointResult point_from_json(const json& j, const std::vector<std::string>& keys)
   p.force_gradient = val(j["stick_force_gradient_N_per_mps"]);
   p.max_real_held = val(j["max_real_held_per_s"]);
   p.max_real_free = val(j["max_real_free_per_s"]);
+  auto str = [&](const char* k) { return j.contains(k) && j[k].is_string() ? j[k].get<std::string>() : std::string(); };
+  p.mode_held = str("deciding_mode_held");
+  p.mode_free = str("deciding_mode_free");
+  p.set_aside_held = str("roots_set_aside_held");
+  p.set_aside_free = str("roots_set_aside_free");
   p.sp_damping_held = val(j["sp_damping_held"]);
   p.sp_damping_free = val(j["sp_damping_free"]);
   p.sp_frequency_held = val(j["sp_frequency_held_rad_s"]);
@@ -134,11 +152,22 @@ json sweep_json(const SweepResult& r) {
          {"points", pts}, {"caution", kCaution}};
   if (r.has_boundary) {
     auto b = [](const Boundary& x, bool free) {
-      json o{{"closed_form", num(x.closed_form)}, {"eigenvalue", num(x.eigenvalue)}, {"time_domain", num(x.time_domain)}};
+      // the closed form is a static criterion: when the root that crosses is a complex pair it
+      // does not apply, and the comparison covers the eigenvalue and time-domain methods only
+      const double cf = x.closed_form_applies ? x.closed_form : nan_;
+      auto text = [](const std::string& t) { return t.empty() ? json(nullptr) : json(t); };
+      json o{{"closed_form", num(cf)}, {"eigenvalue", num(x.eigenvalue)}, {"time_domain", num(x.time_domain)},
+             {"closed_form_applies", x.closed_form_applies}, {"closed_form_note", text(x.closed_form_note)},
+             {"crossing_mode", text(x.crossing_mode)}, {"roots_set_aside", text(x.set_aside)},
+             {"time_domain_check", text(x.time_domain_check)}, {"error", text(x.error)}};
       if (free) o["closed_form_aerodynamic"] = num(x.closed_form_aerodynamic);
-      const double lo = std::min({x.closed_form, x.eigenvalue, x.time_domain});
-      const double hi = std::max({x.closed_form, x.eigenvalue, x.time_domain});
-      o["spread"] = num(hi - lo);
+      if (!x.closed_form_applies) o["closed_form_static_criterion"] = num(x.closed_form);
+      double lo = std::numeric_limits<double>::infinity(), hi = -lo;
+      int n = 0;
+      for (double v : {cf, x.eigenvalue, x.time_domain})
+        if (std::isfinite(v)) { lo = std::min(lo, v); hi = std::max(hi, v); ++n; }
+      o["spread"] = n >= 2 ? json(hi - lo) : json(nullptr);
+      o["spread_methods"] = n;
       return o;
     };
     j["boundary"] = {{"held", b(r.held, false)}, {"free", b(r.free, true)}};
@@ -200,13 +229,18 @@ SweepResult sweep_from_json(const json& j) {
 std::string sweep_csv(const SweepResult& r) {
   std::ostringstream o;
   o.precision(10);
+  // the inputs first, under their keys; a standard column of the same name (cg) is not
+  // repeated, so every header name is unique
+  std::vector<const char*> cols;
+  for (const char* c : kColumns)
+    if (std::find(r.input_keys.begin(), r.input_keys.end(), c) == r.input_keys.end()) cols.push_back(c);
   for (const auto& k : r.input_keys) o << k << ",";
-  for (std::size_t i = 0; i < std::size(kColumns); ++i) o << kColumns[i] << (i + 1 < std::size(kColumns) ? "," : "\n");
+  for (std::size_t i = 0; i < cols.size(); ++i) o << cols[i] << (i + 1 < cols.size() ? "," : "\n");
   for (const auto& p : r.points) {
     const json j = point_json(p, r.input_keys);
     for (const auto& k : r.input_keys) o << j["inputs"][k].get<double>() << ",";
-    for (std::size_t i = 0; i < std::size(kColumns); ++i) {
-      const auto& v = j[kColumns[i]];
+    for (std::size_t i = 0; i < cols.size(); ++i) {
+      const auto& v = j[cols[i]];
       if (v.is_null()) o << "";
       else if (v.is_boolean()) o << (v.get<bool>() ? "1" : "0");
       else if (v.is_string()) {
@@ -215,7 +249,7 @@ std::string sweep_csv(const SweepResult& r) {
           if (ch == '"') ch = '\'';
         o << '"' << s << '"';
       } else o << v.get<double>();
-      o << (i + 1 < std::size(kColumns) ? "," : "\n");
+      o << (i + 1 < cols.size() ? "," : "\n");
     }
   }
   return o.str();
@@ -234,14 +268,24 @@ std::string sweep_table(const SweepResult& r) {
     o << "\nhands-off divergence boundary (CG, % MAC):\n";
     std::snprintf(line, sizeof line, "  %-12s %14s %14s %14s\n", "", "closed form", "eigenvalue", "time domain");
     o << line;
-    std::snprintf(line, sizeof line, "  %-12s %14s %14s %14s\n", "stick held", pc(r.held.closed_form).c_str(),
+    auto cf = [&](const Boundary& b) { return b.closed_form_applies ? pc(b.closed_form) : std::string("n/a (osc.)"); };
+    std::snprintf(line, sizeof line, "  %-12s %14s %14s %14s\n", "stick held", cf(r.held).c_str(),
                   pc(r.held.eigenvalue).c_str(), pc(r.held.time_domain).c_str());
     o << line;
-    std::snprintf(line, sizeof line, "  %-12s %14s %14s %14s\n", "stick free", pc(r.free.closed_form).c_str(),
+    std::snprintf(line, sizeof line, "  %-12s %14s %14s %14s\n", "stick free", cf(r.free).c_str(),
                   pc(r.free.eigenvalue).c_str(), pc(r.free.time_domain).c_str());
     o << line;
     o << "  (free closed form includes the constant hinge moments; aerodynamic stick-free neutral point "
       << pc(r.free.closed_form_aerodynamic) << ")\n";
+    for (const auto& [name, b] : {std::pair<const char*, const Boundary*>{"held", &r.held}, {"free", &r.free}}) {
+      if (!b->crossing_mode.empty()) o << "  " << name << ": the root that crosses zero is the " << b->crossing_mode << "\n";
+      if (!b->closed_form_applies)
+        o << "  " << name << ": closed form not applicable: " << b->closed_form_note << " (static criterion "
+          << pc(b->closed_form) << "); compare the eigenvalue and time-domain columns only\n";
+      if (!b->set_aside.empty()) o << "  " << name << ": " << b->set_aside << "\n";
+      if (!b->time_domain_check.empty()) o << "  " << name << ": time domain " << b->time_domain_check << "\n";
+      if (!b->error.empty()) o << "  " << name << ": " << b->error << "\n";
+    }
   }
   if (!r.spec.sample.empty()) {
     const json j = sweep_json(r);

@@ -47,11 +47,12 @@ const Mode* find_mode(const std::vector<Mode>& ms, const std::string& name) {
     if (m.name == name) return &m;
   return nullptr;
 }
+// The deciding root (model/linear.hpp deciding_root, the one definition) as its mode.
 const Mode* max_real_mode(const std::vector<Mode>& ms) {
-  const Mode* w = nullptr;
+  const StabilityRoot d = deciding_root(ms);
   for (const auto& m : ms)
-    if (!w || m.root.real() > w->root.real()) w = &m;
-  return w;
+    if (d.found && !m.neutral && m.root == d.root && m.name == d.mode) return &m;
+  return nullptr;
 }
 
 // Linear interpolation of y(x) at `at` over finite pairs (x increasing); NaN outside.
