@@ -1,7 +1,7 @@
 // test_static.cpp — stick-fixed and stick-free static stability against the published
 // formulas: Etkin and Reid, Dynamics of Flight (3rd ed.), sec. 2.3-2.6 (tail volume, total lift
 // slope, neutral point, free-elevator factor); the stick-force and stick-force-per-g equations
-// as given in USAF Test Pilot School, Flying Qualities Phase, vol. II ch. 5-6 (checks.md sec. 4).
+// as given in USAF Test Pilot School, Flying Qualities Phase, vol. II ch. 5-6.
 #include <doctest/doctest.h>
 
 #include <cmath>
