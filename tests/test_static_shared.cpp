@@ -160,3 +160,23 @@ TEST_CASE("trim names the cause: the tab runs out") {
     CHECK(e.message.find("tab") != std::string::npos);
   }
 }
+
+TEST_CASE("a tenfold change of the CG search tolerance does not move the answer") {
+  // a numerical setting must not decide a physical answer (common practice: change it tenfold
+  // both ways; the answers agree to the coarsest tolerance)
+  const Airplane a = test::plain_airplane();
+  const Condition c = test::cruise(55.0);
+  const auto f = [&](const Plant& p) {
+    const Trim t = trim_free(p, c);
+    return model_neutral_points(p, t).free - p.ap.mass.h_cg;
+  };
+  const double coarse = cg_zero(a, f, 0.3, 0.05, 1e-5);
+  const double nominal = cg_zero(a, f, 0.3, 0.05, 1e-6);
+  const double fine = cg_zero(a, f, 0.3, 0.05, 1e-7);
+  REQUIRE(std::isfinite(nominal));
+  CHECK(std::abs(coarse - nominal) < 1e-5);
+  CHECK(std::abs(fine - nominal) < 1e-6);
+  // and a tenfold change of the first step of the bracket search
+  CHECK(std::abs(cg_zero(a, f, 0.3, 0.005, 1e-6) - nominal) < 2e-6);
+  CHECK(std::abs(cg_zero(a, f, 0.3, 0.5, 1e-6) - nominal) < 2e-6);
+}
