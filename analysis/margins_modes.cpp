@@ -8,6 +8,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "model/roots.hpp"
 #include "model/units.hpp"
 #include "run/run.hpp"
 
@@ -19,7 +20,10 @@ namespace {
 
 constexpr double nan_ = std::numeric_limits<double>::quiet_NaN();
 
-// Speed at which the fixed-tab stick force equals `target`, between a and b (bisection).
+// Speed at which the fixed-tab stick force equals `target`, between a and b (TOMS 748,
+// model/roots.hpp, to 1e-4 m/s). NaN when the force minus target has the same sign at both ends
+// or a speed in between does not trim (no such speed: an answer); SolverFailure when the solve
+// does not converge (numerical).
 double speed_for_force(const Plant& p, const Condition& c, double tab, double target, double a, double b) {
   auto f = [&](double V) {
     Condition ci = c;
@@ -30,25 +34,13 @@ double speed_for_force(const Plant& p, const Condition& c, double tab, double ta
     r.check_limits = false;
     return trim(p, r).stick_force - target;
   };
-  double fa, fb;
   try {
-    fa = f(a);
-    fb = f(b);
+    const double fa = f(a), fb = f(b);
+    if (fa * fb > 0) return nan_;
+    return find_root(f, a, b, fa, fb, 1e-4, "speed at a given stick force");
   } catch (const TrimError&) {
     return nan_;
   }
-  if (fa * fb > 0) return nan_;
-  for (int i = 0; i < 60 && b - a > 1e-4; ++i) {
-    const double m = 0.5 * (a + b);
-    double fm;
-    try {
-      fm = f(m);
-    } catch (const TrimError&) {
-      return nan_;
-    }
-    if (fa * fm <= 0) { b = m; fb = fm; } else { a = m; fa = fm; }
-  }
-  return 0.5 * (a + b);
 }
 
 }  // namespace
@@ -98,8 +90,7 @@ Margins compute_margins(const Scenario& s, const MarginsOptions& o) {
   }
   m.force_gradient = stick_force_gradient(p, c, tf.tab);
   // the speed range of the curve: the stated envelope, else 1.2 Vs to 1.6 V_trim
-  const double rho = isa_at(geopotential_altitude(c.altitude)).density;
-  const double Vs = std::sqrt(2.0 * p.m * units::g0 / (rho * s.airplane.wing.area * wing_stall(s.airplane.wing.lift).CLmax));
+  const double Vs = stall_speed(s.airplane, c.altitude);
   m.speed_lo = s.envelope.min_speed > 0 ? s.envelope.min_speed : 1.2 * Vs;
   m.speed_hi = s.envelope.max_speed > 0 ? s.envelope.max_speed : 1.6 * c.airspeed;
   m.curve = stick_force_curve(p, c, tf.tab, m.speed_lo, m.speed_hi, o.curve_points);
@@ -109,7 +100,9 @@ Margins compute_margins(const Scenario& s, const MarginsOptions& o) {
     const auto& a = m.curve[i - 1];
     const auto& b = m.curve[i];
     if (a.stick_force * b.stick_force < 0) {
-      const double Vz = a.airspeed - a.stick_force * (b.airspeed - a.airspeed) / (b.stick_force - a.stick_force);
+      double Vz = speed_for_force(p, c, tf.tab, 0.0, a.airspeed, b.airspeed);
+      if (std::isnan(Vz))  // a speed in between did not trim: the chord of the two points
+        Vz = a.airspeed - a.stick_force * (b.airspeed - a.airspeed) / (b.stick_force - a.stick_force);
       if (std::abs(Vz - c.airspeed) > 0.02 * c.airspeed) {
         m.reversal_speed = Vz;
         break;
@@ -126,12 +119,38 @@ Margins compute_margins(const Scenario& s, const MarginsOptions& o) {
   CgLimitOptions lo;
   // forward limit: flared near the stall, 1.1 Vs at sea level (no ground effect in the model,
   // which would ask for still more up elevator)
-  const double Vs0 = std::sqrt(2.0 * p.m * units::g0 / (isa::rho0 * s.airplane.wing.area * wing_stall(s.airplane.wing.lift).CLmax));
-  lo.min_speed = 1.1 * Vs0;
-  lo.min_static_margin = o.min_static_margin;
-  lo.min_force_per_g = o.min_force_per_g;
+  lo.min_speed = 1.1 * stall_speed(s.airplane, 0.0);
+  lo.criteria = o.criteria;
+  lo.margin_from_user = o.margin_from_user;
+  lo.force_from_user = o.force_from_user;
   m.limits = cg_limits(s.airplane, c, lo);
   return m;
+}
+
+PerGCurve force_per_g_curve(const Plant& p, const Condition& c, double tab, double n_max, double dn) {
+  PerGCurve out;
+  out.n_max = n_max;
+  out.stop_load_factor = nan_;
+  const int steps = static_cast<int>(std::floor((n_max - 1.0) / dn + 1e-9));
+  for (int i = 0; i <= steps; ++i) {
+    TrimRequest r;
+    r.condition = c;
+    r.tab = tab;
+    r.load_factor = 1.0 + dn * i;
+    r.check_throttle = false;
+    try {
+      const Trim t = trim(p, r);
+      out.points.push_back({r.load_factor, t.stick_force, t.de, t.alpha});
+    } catch (const TrimError& e) {
+      out.stop_load_factor = r.load_factor;
+      out.stop = e.limit;
+      out.numerical = e.limit == TrimLimit::no_convergence;
+      out.stop_reason = e.message;
+      return out;
+    }
+  }
+  out.complete = true;
+  return out;
 }
 
 ModesResult compute_modes(const Scenario& s) {

@@ -10,6 +10,7 @@
 
 #include "model/linear.hpp"
 #include "model/static.hpp"
+#include "model/trim.hpp"
 #include "scenario/scenario.hpp"
 
 namespace fp {
@@ -20,10 +21,34 @@ struct Pair {
 };
 
 struct MarginsOptions {
-  double min_static_margin = 0.05;  // [-]
-  double min_force_per_g = 13.3;    // [N/g] (3 lbf/g)
+  StaticCriteria criteria;          // minimum margin and force per g of the aft CG limits (model/static.hpp)
+  bool margin_from_user = false;    // criteria.min_static_margin was set by the user (else a tool default)
+  bool force_from_user = false;     // criteria.min_force_per_g was set by the user
   int curve_points = 41;            // stick-force curve points
 };
+
+// Stick force against load factor in steady pull-ups at the condition's speed with the tab fixed
+// (the one per-g curve of the command line and the report). From n = 1 in steps of dn up to
+// n_max; it stops at the last load factor that trims and says why: the wing's stall, the elevator's
+// stop, the tab's range (TrimError of model/trim.hpp, limits checked; the throttle is left free,
+// since the force per g is defined whether or not the engine can hold the speed), or a trim that
+// did not converge (numerical, said as such).
+struct PerGPoint {
+  double load_factor = 0;  // [-]
+  double stick_force = 0;  // [N], pull +
+  double elevator = 0;     // [rad]
+  double alpha = 0;        // [rad]
+};
+struct PerGCurve {
+  std::vector<PerGPoint> points;
+  double n_max = 0;                 // the load factor asked for [-]
+  bool complete = false;            // every load factor up to n_max trimmed
+  double stop_load_factor = 0;      // the first load factor that did not trim (NaN when complete)
+  TrimLimit stop = TrimLimit::none; // what stopped it
+  bool numerical = false;           // the stop is a numerical failure, not a limit of the airplane
+  std::string stop_reason;          // the trim's own words
+};
+PerGCurve force_per_g_curve(const Plant& p, const Condition& c, double tab, double n_max = 4.0, double dn = 0.25);
 
 struct Margins {
   double cg = 0;                    // scenario CG [-]

@@ -119,7 +119,11 @@ int main(int argc, char** argv) {
   if (*check) return fp::cmd::check(check_o);
   if (*trim) return fp::cmd::trim(trim_o);
   if (*run) return fp::cmd::run(run_o);
-  if (*margins) return fp::cmd::margins(margins_o);
+  if (*margins) {
+    margins_o.margin_from_user = margins->get_option("--min-margin")->count() > 0;
+    margins_o.force_from_user = margins->get_option("--min-force-per-g")->count() > 0;
+    return fp::cmd::margins(margins_o);
+  }
   if (*forces) return fp::cmd::forces(forces_o);
   if (*modes) return fp::cmd::modes(modes_o);
   if (*sweep) return fp::cmd::sweep(sweep_o);

@@ -40,11 +40,15 @@ int check(const Common& c) {
     const double W = a.mass.mass * units::g0;
     const double ws = W / a.wing.area;
     const double AR = a.wing.span * a.wing.span / a.wing.area;
-    const double lt = a.tail.x_ac - a.mass.h_cg * a.wing.mac;
-    const double VH = a.tail.area * (a.tail.x_ac - a.wing.h_ac * a.wing.mac) / (a.wing.area * a.wing.mac);
+    const double lt = tail_arm(a, a.mass.h_cg);
+    const double VH = tail_volume(a, a.wing.h_ac);
     const auto stall = wing_stall(a.wing.lift);
     const double rho = isa_at(geopotential_altitude(s.condition.altitude)).density;
-    const double Vs = std::sqrt(2.0 * W / (rho * a.wing.area * stall.CLmax));
+    const double Vs = stall_speed(a, s.condition.altitude);
+    const auto warnings = plausibility_warnings(s);
+    const Condition& fc = s.condition;
+    const std::string trim_mode = s.trim.tab_auto ? "tab for zero stick force (hands-off) at the condition"
+                                                  : "tab as set, " + std::to_string(units::to_deg(s.trim.tab)).substr(0, 6) + " deg";
     const double xe = a.elevator.mass > 0 ? a.elevator.mass_moment / a.elevator.mass : 0.0;
     const double G = a.circuit.gearing;
     const double Ieff = a.elevator.inertia + a.circuit.stick_mass / (G * G);
@@ -59,11 +63,24 @@ int check(const Common& c) {
              {"elevator_cg_aft_of_hinge_m", xe}, {"cl_max", stall.CLmax},
              {"alpha_stall_deg", units::to_deg(stall.alpha)}, {"stall_speed_1g_mps", Vs},
              {"elevator_float_frequency_rad_s", wf}, {"reversible", a.circuit.reversible}};
+      j["condition"] = {{"mass_kg", a.mass.mass}, {"cg_fraction_mac", a.mass.h_cg}, {"altitude_m", fc.altitude},
+                        {"true_airspeed_mps", fc.airspeed}, {"flight_path_deg", units::to_deg(fc.flight_path)},
+                        {"trim", s.trim.tab_auto ? "hands_off_tab" : "tab_as_set"},
+                        {"tab_deg", s.trim.tab_auto ? json(nullptr) : json(units::to_deg(s.trim.tab))}};
+      j["warnings"] = json::array();
+      for (const auto& w : warnings)
+        j["warnings"].push_back({{"file", w.where.file}, {"line", w.where.line}, {"key", w.key}, {"reason", w.reason}});
       j["caution"] = kCaution;
       std::cout << j.dump(2) << "\n";
       return kOk;
     }
+    for (const auto& w : warnings) std::printf("warning: %s\n", w.what().c_str());
     std::printf("%s: %s\n", s.path.c_str(), s.name.c_str());
+    std::printf("  flight condition          mass %.1f kg, CG %.1f %% MAC, altitude %.0f m (%.0f ft), %.2f m/s TAS "
+                "(%.1f kt), flight path %.1f deg\n",
+                a.mass.mass, 100 * a.mass.h_cg, fc.altitude, fc.altitude / units::ft, fc.airspeed,
+                units::to_kt(fc.airspeed), units::to_deg(fc.flight_path));
+    std::printf("  trim mode                 %s\n", trim_mode.c_str());
     std::printf("  wing loading              %.1f N/m2 (%.1f kg/m2, %.2f lb/ft2)\n", ws, ws / units::g0, ws / units::psf);
     std::printf("  aspect ratio              %.2f\n", AR);
     std::printf("  mean aerodynamic chord    %.3f m\n", a.wing.mac);

@@ -44,19 +44,15 @@ int forces(const ForcesOpts& o) {
       a << f.airspeed << "," << units::to_kt(f.airspeed) << "," << f.stick_force << "," << units::to_deg(f.elevator)
         << "," << units::to_deg(f.alpha) << "\n";
     const auto plant = scenario_plant(s);
+    const PerGCurve pg = force_per_g_curve(*plant, s.condition, m.trim_tab);
     b << "load_factor [-],stick_force [N],elevator [deg]\n";
-    for (int i = 0; i <= 12; ++i) {
-      TrimRequest r;
-      r.condition = s.condition;
-      r.tab = m.trim_tab;
-      r.load_factor = 1.0 + 0.25 * i;
-      r.check_limits = false;
-      const Trim t = fp::trim(*plant, r);
-      b << r.load_factor << "," << t.stick_force << "," << units::to_deg(t.de) << "\n";
-    }
+    for (const auto& q : pg.points)
+      b << q.load_factor << "," << q.stick_force << "," << units::to_deg(q.elevator) << "\n";
+    const std::string stop = per_g_stop_text(pg);
     if (o.out.empty()) {
       std::cout << "# stick force against airspeed, tab fixed at " << units::to_deg(m.trim_tab) << " deg\n"
-                << a.str() << "\n# stick force against load factor (steady pull-up at the trim speed)\n" << b.str();
+                << a.str() << "\n# stick force against load factor (steady pull-up at the trim speed)\n" << b.str()
+                << "# " << stop << "\n";
       return kOk;
     }
     std::string per_g = o.out;
@@ -64,7 +60,7 @@ int forces(const ForcesOpts& o) {
     per_g = (dot != std::string::npos ? per_g.substr(0, dot) : per_g) + "_per_g.csv";
     write_file_atomic(o.out, a.str());
     write_file_atomic(per_g, b.str());
-    std::cout << "wrote " << o.out << " and " << per_g << "\n";
+    std::cout << "wrote " << o.out << " and " << per_g << "\n" << stop << "\n";
     return kOk;
   }, o.out.empty() ? CautionTo::err : CautionTo::out);
 }

@@ -39,8 +39,9 @@ int margins(const MarginsOpts& o) {
       throw ScenarioError{s.path, 0, 0, "circuit.reversible",
                           "the circuit is irreversible: there are no stick-free margins (use `modes` for the held case)"};
     MarginsOptions mo;
-    mo.min_static_margin = o.min_margin;
-    mo.min_force_per_g = o.min_force_per_g;
+    mo.criteria = {o.min_margin, o.min_force_per_g};
+    mo.margin_from_user = o.margin_from_user;
+    mo.force_from_user = o.force_from_user;
     const Margins m = compute_margins(s, mo);
     if (o.common.json) {
       json j = margins_json(m);

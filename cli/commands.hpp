@@ -8,6 +8,8 @@
 #include <string>
 #include <vector>
 
+#include "model/static.hpp"  // StaticCriteria: the default criteria of the CG limits
+
 namespace fp::cmd {
 
 inline constexpr int kOk = 0;
@@ -43,8 +45,10 @@ int run(const RunOpts& o);
 
 struct MarginsOpts {
   Common common;
-  double min_margin = 0.05;        // [-] for the aft CG limit
-  double min_force_per_g = 13.3;   // [N/g] for the aft CG limit (3 lbf/g)
+  double min_margin = kDefaultCriteria.min_static_margin;     // [-] for the aft CG limit
+  double min_force_per_g = kDefaultCriteria.min_force_per_g;  // [N/g] for the aft CG limit
+  bool margin_from_user = false;   // --min-margin given (else the limit is a tool default)
+  bool force_from_user = false;    // --min-force-per-g given
 };
 int margins(const MarginsOpts& o);
 
@@ -91,8 +95,8 @@ struct ReportOpts {
   std::vector<std::string> sample;  // KEY=uniform(LO,HI) | KEY=normal(M,SD): replaces the default band
   int samples = 40;
   unsigned long seed = 1;
-  double min_margin = 0.05;         // [-] for the aft CG limit
-  double min_force_per_g = 13.3;    // [N/g] for the aft CG limit
+  double min_margin = kDefaultCriteria.min_static_margin;     // [-] for the aft CG limit
+  double min_force_per_g = kDefaultCriteria.min_force_per_g;  // [N/g] for the aft CG limit
   bool pdf = false;
   int jobs = 0;                     // 0: the number of cores
 };

@@ -7,6 +7,7 @@
 #include <string>
 
 #include "cli/commands.hpp"
+#include "model/roots.hpp"
 #include "model/trim.hpp"
 #include "run/run.hpp"
 #include "scenario/scenario.hpp"
@@ -23,8 +24,17 @@ int guarded_body(const std::string& scenario, F&& body) {
     std::cerr << "error: " << e.what() << "\n";
     return kBadInput;
   } catch (const TrimError& e) {
+    if (e.limit == TrimLimit::no_convergence) {  // no limit of the airplane explains it: numerics
+      std::cerr << "numerical failure (of the trim solver, not a result about the airplane): " << scenario << ": "
+                << e.message << "\n";
+      return kNumerical;
+    }
     std::cerr << "error: " << scenario << ": " << e.message << "\n";
     return kBadInput;
+  } catch (const SolverFailure& e) {
+    std::cerr << "numerical failure (a one-dimensional solver, not a result about the airplane): " << scenario
+              << ": " << e.quantity << ": " << e.message << "\n";
+    return kNumerical;
   } catch (const NumericalFailure& e) {
     std::cerr << "numerical failure (a failure of the integration, not a result about the airplane) at t = "
               << e.time << " s: " << e.message << "\n  state:";

@@ -132,7 +132,7 @@ Plant make_plant(const Airplane& ap) {
   p.rW_z = ap.wing.z_ac;
   p.rT_x = -(ap.tail.x_ac - xcg);
   p.rT_z = ap.tail.z_ac;
-  p.l_wt = ap.tail.x_ac - ap.wing.h_ac * c;
+  p.l_wt = tail_arm(ap, ap.wing.h_ac);
   if (p.l_wt <= 0.0) throw ModelError{"tail.x_ac, wing.h_ac", "the tail's a.c. must lie aft of the wing-body a.c."};
   const double x_e = p.m_e > 0.0 ? p.S_e / p.m_e : 0.0;
   p.I_ecg = ap.elevator.inertia - p.m_e * x_e * x_e;
@@ -169,10 +169,16 @@ double circuit_hinge_moment(const Airplane& ap, double de, double ded) {
   return Hc;
 }
 
+double weight_hinge_moment(const Airplane& ap, double de, double n) {
+  return ap.elevator.mass_moment * std::cos(de) * n * g + ap.circuit.bobweight / ap.circuit.gearing * n;
+}
+
+double constant_hinge_moment(const Airplane& ap) {
+  return weight_hinge_moment(ap, 0.0, 1.0) + ap.circuit.downspring / ap.circuit.gearing;
+}
+
 double steady_hinge_moment(const Plant& p, double H_aero, double de, double n) {
-  const auto& ci = p.ap.circuit;
-  return H_aero + circuit_hinge_moment(p.ap, de, 0.0) + ci.bobweight / ci.gearing * n +
-         p.S_e * std::cos(de) * n * g;
+  return H_aero + circuit_hinge_moment(p.ap, de, 0.0) + weight_hinge_moment(p.ap, de, n);
 }
 
 int lag_states(const Plant& p) {
@@ -224,7 +230,7 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
   const V2 vT = local_air(rT, e.gust_tail);
   e.V_t = std::hypot(vT.x, vT.z);
   const double alpha_tl = std::atan2(vT.z, vT.x);
-  const double eps_target = ap.tail.eps0 + ap.tail.deps_dalpha * e.alpha;
+  const double eps_target = steady_downwash(ap.tail, e.alpha);
   const int nlag = lag_states(p);
   e.eps = nlag == 0 ? eps_target : x[sx::eps0 + static_cast<std::size_t>(nlag) - 1];
   e.alpha_t = alpha_tl + ap.tail.incidence - e.eps;
@@ -362,7 +368,7 @@ State steady_state(const Plant& p, double V, double alpha, double theta, double 
   x[sx::theta] = theta;
   x[sx::h] = h;
   x[sx::de] = de;
-  const double eps = p.ap.tail.eps0 + p.ap.tail.deps_dalpha * alpha;
+  const double eps = steady_downwash(p.ap.tail, alpha);
   for (int i = 0; i < lag_states(p); ++i) x[sx::eps0 + static_cast<std::size_t>(i)] = eps;
   return x;
 }

@@ -107,6 +107,29 @@ double circuit_hinge_moment(const Airplane& ap, double de, double ded);
 // at n g acts along body z). Its zero is the floated elevator of the static analyses [N m].
 double steady_hinge_moment(const Plant& p, double H_aero, double de, double n);
 
+// Hinge moment of the elevator's own weight and of the bobweight in steady flight at load factor
+// n with the elevator at de: S_e cos(de) n g0 + B n / G (the apparent gravity of steady flight at
+// n g acts along body z; the bobweight pushes B per g at the stick, B/G at the hinge) [N m, TE down +].
+double weight_hinge_moment(const Airplane& ap, double de, double n);
+
+// The constant hinge moment H_c at 1 g with the elevator at zero: the elevator's weight about the
+// hinge, the downspring and the bobweight, H_c = S_e g0 + D/G + B/G [N m, TE down +]. It does not
+// grow with dynamic pressure, which is what moves the apparent stick-free neutral point (static.hpp).
+double constant_hinge_moment(const Airplane& ap);
+
+// Steady downwash at the tail for a wing angle of attack alpha: eps = eps0 + (deps/dalpha) alpha
+// [rad] (Etkin and Reid, Dynamics of Flight, sec. 2.4, the linear downwash law).
+inline double steady_downwash(const Tail& t, double alpha) { return t.eps0 + t.deps_dalpha * alpha; }
+
+// Tail arm l_t = x_ac,t - x_ref c from a reference point at x_ref (fraction of the MAC aft of its
+// leading edge), and the horizontal tail volume V_H = S_t l_t / (S c) with that arm (Etkin and
+// Reid, sec. 2.4: the arm from the wing-body a.c., x_ref = wing.h_ac; the static analyses also use
+// the arm from the CG for the elevator power and the tail's pitch damping) [m, -].
+inline double tail_arm(const Airplane& ap, double x_ref) { return ap.tail.x_ac - x_ref * ap.wing.mac; }
+inline double tail_volume(const Airplane& ap, double x_ref) {
+  return ap.tail.area * tail_arm(ap, x_ref) / (ap.wing.area * ap.wing.mac);
+}
+
 // Number of downwash lag states in use for this plant (0..4).
 int lag_states(const Plant& p);
 

@@ -6,6 +6,7 @@
 #include <cstdio>
 #include <limits>
 
+#include "roots.hpp"
 #include "units.hpp"
 
 namespace fp {
@@ -31,7 +32,9 @@ void cl_cm(const Plant& p, const State& x, const Controls& c, double& CL, double
   if (H_aero) *H_aero = e.H_aero;
 }
 
-// Elevator floated to zero quasi-static hinge moment at 1 g, at the state x (secant on de).
+// Elevator floated to zero quasi-static hinge moment at 1 g, at the state x: a bracket from de0
+// within the stops' contact (the stop springs make the hinge moment monotonic past the stops),
+// then TOMS 748 (model/roots.hpp) to 1e-10 rad.
 double float_elevator(const Plant& p, State x, const Controls& c, double de0) {
   auto H = [&](double de) {
     x[sx::de] = de;
@@ -41,15 +44,12 @@ double float_elevator(const Plant& p, State x, const Controls& c, double de0) {
     cl_cm(p, x, cc, CL, Cm, &Ha);
     return steady_hinge_moment(p, Ha, de, 1.0);
   };
-  double a = de0, b = de0 + 0.01, fa = H(a), fb = H(b);
-  for (int i = 0; i < 30 && std::abs(fb) > 1e-12 && fb != fa; ++i) {
-    const double nb = b - fb * (b - a) / (fb - fa);
-    a = b;
-    fa = fb;
-    b = nb;
-    fb = H(b);
-  }
-  return b;
+  const auto& el = p.ap.elevator;
+  double a, b, fa, fb;
+  struct Never {};
+  if (!bracket_root<Never>(H, de0, 0.01, el.delta_min - 0.5, el.delta_max + 0.5, a, b, fa, fb))
+    throw SolverFailure{"floated elevator angle", "the quasi-static hinge moment keeps its sign over the elevator's travel"};
+  return find_root(H, a, b, fa, fb, 1e-10, "floated elevator angle");
 }
 
 }  // namespace
@@ -61,14 +61,13 @@ ClosedForm closed_form(const Airplane& ap, const Condition& c) {
   const auto& el = ap.elevator;
   const auto& ci = ap.circuit;
   const double S = w.area, cbar = w.mac, h = ap.mass.h_cg;
-  const double lt_ac = t.x_ac - w.h_ac * cbar;  // from the wing-body a.c.
-  const double lt_cg = t.x_ac - h * cbar;       // from the CG
-  r.tail_volume = t.area * lt_ac / (S * cbar);
-  const double VH_cg = t.area * lt_cg / (S * cbar);
+  const double lt_cg = tail_arm(ap, h);  // from the CG
+  r.tail_volume = tail_volume(ap, w.h_ac);  // arm from the wing-body a.c.
+  const double VH_cg = tail_volume(ap, h);
   const double k = ci.geared_tab_ratio;
   const double tau = t.tau_elevator + k * t.tau_tab;
   const double chd = el.ch_delta + k * el.ch_tab;
-  r.free_factor = 1.0 - tau * el.ch_alpha / chd;
+  r.free_factor = free_elevator_factor(ap);
   const double at = t.lift.slope, awb = w.lift.slope, eta = t.eta, de_da = t.deps_dalpha;
   r.lift_slope = awb + eta * (t.area / S) * at * (1.0 - de_da);
   r.lift_slope_free = awb + eta * (t.area / S) * r.free_factor * at * (1.0 - de_da);
@@ -84,7 +83,7 @@ ClosedForm closed_form(const Airplane& ap, const Condition& c) {
   const double q = 0.5 * rho * c.airspeed * c.airspeed;
   const double CW = WS / q;
   const double G = ci.gearing;
-  r.hinge_constant = el.mass_moment * units::g0 + ci.downspring / G + ci.bobweight / G;
+  r.hinge_constant = constant_hinge_moment(ap);
   const double K = eta * el.area * el.chord * (chd / r.cm_delta) * WS;  // [N m] per unit of MAC
   r.np_apparent = r.np_free + r.hinge_constant / K;
   r.mu = 2.0 * ap.mass.mass / (rho * S * cbar);
@@ -98,10 +97,18 @@ ClosedForm closed_form(const Airplane& ap, const Condition& c) {
   r.force_gradient = -2.0 * (r.force_constant_A + G * r.hinge_constant) / c.airspeed;
   r.elevator_per_g = -(CW / r.cm_delta) * (h - r.mp_fixed);
   r.force_per_g_aero = G * K * (r.mp_free - h);
-  r.force_per_g = r.force_per_g_aero + ci.bobweight + G * el.mass_moment * units::g0;
+  // the bobweight and the elevator's weight add G d(H)/dn at the stick
+  r.force_per_g = r.force_per_g_aero + G * weight_hinge_moment(ap, 0.0, 1.0);
   const double Aeff = r.force_constant_A + G * r.hinge_constant;
   r.free_return_fraction = Aeff != 0.0 ? ci.friction / (2.0 * std::abs(Aeff)) : nan_;
   return r;
+}
+
+double free_elevator_factor(const Airplane& ap) {
+  const double k = ap.circuit.geared_tab_ratio;
+  const double tau = ap.tail.tau_elevator + k * ap.tail.tau_tab;
+  const double chd = ap.elevator.ch_delta + k * ap.elevator.ch_tab;
+  return 1.0 - tau * ap.elevator.ch_alpha / chd;
 }
 
 ModelNeutralPoints model_neutral_points(const Plant& p, const Trim& t) {
@@ -192,30 +199,23 @@ Airplane without_constant_hinge_moments(Airplane ap) {
 
 double cg_zero(const Airplane& ap, const std::function<double(const Plant&)>& f, double h0, double step,
                double tol) {
-  auto F = [&](double cg) { return f(make_plant(with_cg(ap, cg))); };
-  double a = h0, b = h0 + step;
-  double fa, fb;
-  try {
-    fa = F(a);
-    fb = F(b);
-  } catch (const TrimError&) {
-    return nan_;
-  }
-  for (int i = 0; i < 40; ++i) {
-    if (std::abs(b - a) < tol || fb == 0.0) return b;
-    if (fb == fa) return nan_;
-    double nb = b - fb * (b - a) / (fb - fa);
-    nb = std::clamp(nb, b - 0.5, b + 0.5);  // keep the steps bounded
-    a = b;
-    fa = fb;
-    b = nb;
+  auto F = [&](double cg) {
+    Plant p;
     try {
-      fb = F(b);
-    } catch (const TrimError&) {
-      return nan_;
+      p = make_plant(with_cg(ap, cg));
+    } catch (const ModelError& e) {  // an airplane that cannot exist at this CG: outside the search
+      throw TrimError{TrimLimit::none, e.message};
     }
+    return f(p);
+  };
+  double a, b, fa, fb;
+  // the CG range of the key table (mass.h_cg, -0.5..1.5); TrimError: the airplane does not trim there
+  if (!bracket_root<TrimError>(F, h0, step, -0.5, 1.5, a, b, fa, fb)) return nan_;
+  try {
+    return find_root(F, a, b, fa, fb, tol, "CG of a zero");
+  } catch (const TrimError&) {
+    return nan_;  // a CG inside the bracket does not trim: no answer rather than a wrong one
   }
-  return std::abs(b - a) < 10 * tol ? b : nan_;
 }
 
 CgLimits cg_limits(const Airplane& ap, const Condition& c, const CgLimitOptions& o) {
@@ -248,17 +248,22 @@ CgLimits cg_limits(const Airplane& ap, const Condition& c, const CgLimitOptions&
   };
   L.aft_free_np.cg = cg_zero(ap, np_free_at, ap.mass.h_cg);
   L.aft_free_np.reason = "stick-free neutral point (model): zero stick-free static margin";
-  L.aft_margin.cg = std::isnan(L.aft_free_np.cg) ? nan_ : L.aft_free_np.cg - o.min_static_margin;
-  L.aft_margin.reason = "minimum stick-free static margin of " + std::to_string(100 * o.min_static_margin).substr(0, 4) +
-                        " % MAC";
+  const char* const tool_default = "tool default, not a criterion";
+  L.forward.basis = "tool default (trim at 1.1 Vs at sea level), not a criterion";
+  L.aft_margin.cg = std::isnan(L.aft_free_np.cg) ? nan_ : L.aft_free_np.cg - o.criteria.min_static_margin;
+  std::snprintf(why, sizeof why, "minimum stick-free static margin of %.1f %% MAC", 100 * o.criteria.min_static_margin);
+  L.aft_margin.reason = why;
+  L.aft_margin.basis = o.margin_from_user ? "set by the user" : tool_default;
   L.aft_force_per_g.cg = cg_zero(
       ap,
       [&](const Plant& p) {
         const Trim t = trim_free(p, c);
-        return per_g(p, c, t.tab).force_per_g - o.min_force_per_g;
+        return per_g(p, c, t.tab).force_per_g - o.criteria.min_force_per_g;
       },
       ap.mass.h_cg);
-  L.aft_force_per_g.reason = "minimum stick force per g of " + std::to_string(o.min_force_per_g).substr(0, 5) + " N/g";
+  std::snprintf(why, sizeof why, "minimum stick force per g of %.1f N/g", o.criteria.min_force_per_g);
+  L.aft_force_per_g.reason = why;
+  L.aft_force_per_g.basis = o.force_from_user ? "set by the user" : tool_default;
   L.aft = L.aft_free_np;
   for (const CgLimit* x : {&L.aft_margin, &L.aft_force_per_g})
     if (!std::isnan(x->cg) && (std::isnan(L.aft.cg) || x->cg < L.aft.cg)) L.aft = *x;

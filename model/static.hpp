@@ -17,8 +17,11 @@
 // dF_s/dV = -2 (A + G H_c)/V, vanishes at
 //     h_app = h'_n + H_c / (eta S_e c_e (Ch_delta/Cm_delta) (W/S)),
 // aft of h'_n when H_c pushes the trailing edge down. Derived here from the stick-force
-// equation of the textbooks above (USAF TPS Flying Qualities Phase vol. II ch. 5), with the
+// equation of the textbooks above (Etkin and Reid sec. 2.6; USAF TPS vol. II ch. 5), with the
 // constant term added.
+//
+// The CG searches (cg_zero) and the floated elevator use the root finders of model/roots.hpp
+// (Boost.Math TOMS 748); a search that does not converge throws SolverFailure (numerical).
 //
 // All CG-like values are fractions of the MAC aft of its leading edge.
 #pragma once
@@ -59,6 +62,24 @@ struct ClosedForm {
 // Requires Ch_delta' != 0 (the scenario loader refuses a reversible circuit with Ch_delta = 0).
 ClosedForm closed_form(const Airplane& ap, const Condition& c);
 
+// The free-elevator factor F = 1 - tau' Ch_alpha / Ch_delta' with tau' = tau + k tau_tab and
+// Ch_delta' = Ch_delta + k Ch_tab for a geared tab of ratio k (Etkin and Reid sec. 2.6; USAF TPS
+// vol. II ch. 5): the share of the tail's lift slope left when the elevator floats [-].
+double free_elevator_factor(const Airplane& ap);
+
+// The default criteria of the aft CG limits. These are TOOL DEFAULTS, not approved criteria:
+// every consumer (command line, report, window) takes them from here, and an output that uses
+// them without the user having set them says so ("tool default, not a criterion").
+//  * min_static_margin 0.05: a stick-free static margin of 5 % MAC, common practice as a
+//    working minimum for light airplanes;
+//  * min_force_per_g 13.3 N/g = 3.0 lbf/g: the floor of the centre-stick minimum of stick force
+//    per g of MIL-F-8785C (sec. 3.2.2.2.1, table V), from memory.
+struct StaticCriteria {
+  double min_static_margin = 0.05;  // [-] fraction of MAC
+  double min_force_per_g = 13.3;    // [N/g]
+};
+inline constexpr StaticCriteria kDefaultCriteria{};
+
 // From the full model at a trim (held-elevator trim `t`):
 //  fixed: h_cg - dCm/dCL for a change of angle of attack at constant speed, elevator held;
 //  free:  the same with the elevator floated to zero quasi-static hinge moment at each angle
@@ -92,9 +113,11 @@ PerG per_g(const Plant& p, const Condition& c, double tab);
 // downspring, no bobweight): its free results are the aerodynamic ones.
 Airplane without_constant_hinge_moments(Airplane ap);
 
-// The CG (fraction of MAC) at which f(plant at that CG) is zero, by the secant method from
-// h0 and h0 + step (f is close to linear in the CG for all the uses here). Returns NaN when it
-// does not converge or f throws TrimError at every try.
+// The CG (fraction of MAC) at which f(plant at that CG) is zero: a bracket searched from h0 and
+// h0 + step with doubling steps inside the CG range -0.5..1.5 (f is close to linear in the CG for
+// all the uses here), then TOMS 748 to tol (model/roots.hpp). Returns NaN when f keeps its sign
+// over the CGs at which the airplane trims (f throws TrimError beyond them): no such CG, an
+// answer. Throws SolverFailure when the solve does not converge (numerical).
 double cg_zero(const Airplane& ap, const std::function<double(const Plant&)>& f, double h0,
                double step = 0.05, double tol = 1e-6);
 
@@ -102,6 +125,8 @@ double cg_zero(const Airplane& ap, const std::function<double(const Plant&)>& f,
 struct CgLimit {
   double cg = 0;           // fraction of MAC (NaN when not found)
   std::string reason;      // what sets it
+  std::string basis;       // where its criterion comes from: "" (physics alone, e.g. the
+                           // neutral point), "set by the user", or "tool default, not a criterion"
 };
 struct CgLimits {
   CgLimit forward;                 // elevator power at the slowest speed
@@ -112,8 +137,9 @@ struct CgLimits {
 };
 struct CgLimitOptions {
   double min_speed = 0;            // speed of the forward-limit trim (e.g. 1.1 Vs, a flare) [m/s]
-  double min_static_margin = 0.05; // [-] fraction of MAC
-  double min_force_per_g = 13.3;   // [N/g]
+  StaticCriteria criteria;         // minimum margin and force per g of the aft limits
+  bool margin_from_user = false;   // the minimum margin was set by the user (else a tool default)
+  bool force_from_user = false;    // the minimum force per g was set by the user
 };
 CgLimits cg_limits(const Airplane& ap, const Condition& c, const CgLimitOptions& o);
 

@@ -7,6 +7,7 @@
 
 #include <Eigen/Dense>
 
+#include "roots.hpp"
 #include "units.hpp"
 
 namespace fp {
@@ -90,15 +91,68 @@ StallPoint wing_stall(const LiftCurve& lc) {
     const double cl = lift_coefficient(lc, a, false);
     if (cl > best.CLmax) best = {a, cl};
   }
-  double lo = best.alpha - 0.001, hi = best.alpha + 0.001;
-  for (int i = 0; i < 40; ++i) {  // golden-section refinement
-    const double a1 = hi - 0.618 * (hi - lo), a2 = lo + 0.618 * (hi - lo);
-    if (lift_coefficient(lc, a1, false) > lift_coefficient(lc, a2, false)) hi = a2; else lo = a1;
-  }
-  best.alpha = 0.5 * (lo + hi);
-  best.CLmax = lift_coefficient(lc, best.alpha, false);
+  // Brent's method on -CL within one grid step of the best grid point
+  const auto m = find_minimum([&lc](double a) { return -lift_coefficient(lc, a, false); }, best.alpha - 0.001,
+                              best.alpha + 0.001, "angle of attack of the wing's CLmax");
+  if (-m.second >= best.CLmax) best = {m.first, -m.second};
   return best;
 }
+
+double stall_speed(const Airplane& ap, double altitude, double n) {
+  const double rho = isa_at(geopotential_altitude(altitude)).density;
+  return std::sqrt(2.0 * n * ap.mass.mass * units::g0 / (rho * ap.wing.area * wing_stall(ap.wing.lift).CLmax));
+}
+
+namespace {
+
+// Newton's method did not converge: name the cause when the last iterate shows one (a nameable
+// limit is a result about the airplane; only what is left is a numerical failure).
+TrimError why_no_trim(const Plant& p, const TrimRequest& r, const Trim& t, double CLreq, double residual, int it) {
+  const auto& ap = p.ap;
+  const auto stall = wing_stall(ap.wing.lift);
+  const bool hands_off = r.solve_tab || r.zero_force;
+  const auto& el = ap.elevator;
+  if (r.fix_elevator && (r.elevator > el.delta_max || r.elevator < el.delta_min))
+    return {TrimLimit::elevator_stop,
+            fmt("no trim: the elevator asked for (%.1f deg) is beyond its stops %.1f..%.1f deg",
+                units::to_deg(r.elevator), units::to_deg(el.delta_min), units::to_deg(el.delta_max))};
+  if (r.fix_alpha && r.alpha > stall.alpha)
+    return {TrimLimit::stall, fmt("no trim: the angle of attack asked for (%.1f deg) is past the wing's stall at %.1f deg",
+                                  units::to_deg(r.alpha), units::to_deg(stall.alpha))};
+  if (CLreq > stall.CLmax)
+    return {TrimLimit::stall,
+            fmt("no trim: the condition needs a lift coefficient of about %.2f, above the wing's maximum %.2f (stall "
+                "at %.1f deg): it is past CLmax",
+                CLreq, stall.CLmax, units::to_deg(stall.alpha))};
+  if (t.alpha > stall.alpha)
+    return {TrimLimit::stall,
+            fmt("no trim: the solution runs past the wing's stall (angle of attack %.1f deg, stall at %.1f deg; CLmax "
+                "%.2f)",
+                units::to_deg(t.alpha), units::to_deg(stall.alpha), stall.CLmax)};
+  if (t.de > el.delta_max || t.de < el.delta_min)
+    return {TrimLimit::elevator_stop,
+            fmt(hands_off ? "no trim: the elevator floats to its stop (%.1f deg, stops %.1f..%.1f deg): no hands-off "
+                            "trim at this condition"
+                          : "no trim: it needs %.1f deg of elevator, beyond the stops %.1f..%.1f deg",
+                units::to_deg(t.de), units::to_deg(el.delta_min), units::to_deg(el.delta_max))};
+  const auto& ci = ap.circuit;
+  if (r.solve_tab && (t.tab > ci.tab_max || t.tab < ci.tab_min))
+    return {TrimLimit::tab_stop,
+            fmt("no trim: the tab runs out (it would need %.1f deg, range %.1f..%.1f deg)", units::to_deg(t.tab),
+                units::to_deg(ci.tab_min), units::to_deg(ci.tab_max))};
+  if (t.throttle > 1.0 || t.throttle < 0.0)
+    return {TrimLimit::throttle,
+            fmt("no trim: Newton's method ran away to %.0f m/s, where it would need a throttle setting of %.2f "
+                "(outside 0..1), without balancing the airplane: no trim found within the engine's thrust at this "
+                "flight-path angle",
+                t.airspeed, t.throttle)};
+  return {TrimLimit::no_convergence,
+          fmt("no trim: Newton's method did not converge (residual %.2e after %.0f iterations) and no limit of the "
+              "airplane explains it: a numerical failure",
+              residual, static_cast<double>(it))};
+}
+
+}  // namespace
 
 Trim trim(const Plant& p, const TrimRequest& r) {
   Problem pb{p, r, {}, false};
@@ -175,17 +229,8 @@ Trim trim(const Plant& p, const TrimRequest& r) {
   Trim t = pb.evaluate(z, nullptr);
   t.iterations = it;
 
+  if (!ok) throw why_no_trim(p, r, t, CLreq, res.lpNorm<Eigen::Infinity>(), it);
   const auto stall = wing_stall(ap.wing.lift);
-  if (!ok) {
-    if (CLreq > stall.CLmax)
-      throw TrimError{TrimLimit::stall,
-                      fmt("no trim: the condition needs a lift coefficient of about %.2f, above the wing's "
-                          "maximum %.2f (stall at %.1f deg)",
-                          CLreq, stall.CLmax, units::to_deg(stall.alpha))};
-    throw TrimError{TrimLimit::no_convergence,
-                    fmt("no trim: Newton's method did not converge (residual %.2e after %d iterations)",
-                        res.lpNorm<Eigen::Infinity>(), it)};
-  }
   if (!r.check_limits) return t;
   if (t.alpha > stall.alpha)
     throw TrimError{TrimLimit::stall,
@@ -201,7 +246,7 @@ Trim trim(const Plant& p, const TrimRequest& r) {
     throw TrimError{TrimLimit::tab_stop,
                     fmt("no trim: it needs a tab setting of %.1f deg, outside the tab range %.1f..%.1f deg",
                         units::to_deg(t.tab), units::to_deg(ci.tab_min), units::to_deg(ci.tab_max))};
-  if (t.throttle > 1.0 + 1e-9 || t.throttle < -1e-9)
+  if (r.check_throttle && (t.throttle > 1.0 + 1e-9 || t.throttle < -1e-9))
     throw TrimError{TrimLimit::throttle,
                     fmt("no trim: it needs a throttle setting of %.3f, outside 0..1 (more thrust than the "
                         "engine has, or a descent too steep for idle)",

@@ -4,7 +4,10 @@
 // equations are the steady airframe accelerations (u', w', q' = 0 with theta = alpha + gamma)
 // and, for the hands-off cases, zero stick force. A trim that needs the elevator or the tab
 // beyond its stop, an angle of attack past the stall, or a throttle outside 0..1 fails with a
-// TrimError saying which limit stops it; it never returns a wrong answer.
+// TrimError saying which limit stops it; it never returns a wrong answer. When Newton's method
+// does not converge, the last iterate is examined and a nameable cause is named (the condition
+// needs more lift than CLmax, the elevator floats to its stop, the tab runs out); only when none
+// applies is it TrimLimit::no_convergence, a numerical failure (exit status 3 on the command line).
 #pragma once
 
 #include <string>
@@ -49,6 +52,9 @@ struct TrimRequest {
   bool zero_force = false;     // require zero stick force (hands-off) with the tab given
   double load_factor = 1.0;    // steady pull-up at n g (pitch rate q = (n-1) g / V), 1 = straight
   bool check_limits = true;    // false: return a trim beyond stops/stall (for limit searches)
+  bool check_throttle = true;  // false: leave the throttle out of the limits (a steady pull-up
+                               // at constant speed may need more thrust than the engine has;
+                               // the stick force per g is still defined)
 };
 
 // Throws TrimError.
@@ -64,6 +70,13 @@ struct StallPoint {
   double alpha = 0;  // [rad]
   double CLmax = 0;  // [-]
 };
+// Found by a scan of 0..1.2 rad in steps of 0.001 rad and Brent's method around the best point
+// (model/roots.hpp); throws SolverFailure if Brent's method does not converge.
 StallPoint wing_stall(const LiftCurve& lc);
+
+// The stall speed (true airspeed) at load factor n at an altitude: V_s = sqrt(2 n m g0 /
+// (rho S CLmax)) with the wing-body CLmax of wing_stall (the tail's lift left out), m the total
+// mass (the lift equation at CLmax; Etkin and Reid sec. 2.2, common practice) [m/s].
+double stall_speed(const Airplane& ap, double altitude, double n = 1.0);
 
 }  // namespace fp

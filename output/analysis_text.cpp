@@ -26,7 +26,11 @@ std::string pct(double v) { return std::isfinite(v) ? fixed(100.0 * v, 1) : std:
 }  // namespace
 
 json margins_json(const Margins& m) {
-  auto lim = [](const CgLimit& l) { return json{{"cg", num(l.cg)}, {"reason", l.reason}}; };
+  auto lim = [](const CgLimit& l) {
+    json j{{"cg", num(l.cg)}, {"reason", l.reason}};
+    if (!l.basis.empty()) j["basis"] = l.basis;  // e.g. "tool default, not a criterion"
+    return j;
+  };
   json curve = json::array();
   for (const auto& f : m.curve)
     curve.push_back({{"airspeed_mps", f.airspeed}, {"stick_force_N", f.stick_force},
@@ -111,7 +115,9 @@ std::string margins_table(const Margins& m) {
   if (std::isfinite(m.reversal_speed)) o << "stick force reverses at " << fixed(m.reversal_speed, 1) << " m/s\n";
   o << "\nCG limits (% MAC):\n";
   auto lim = [&](const char* name, const CgLimit& l) {
-    o << "  " << name << " " << pct(l.cg) << "  " << l.reason << "\n";
+    o << "  " << name << " " << pct(l.cg) << "  " << l.reason;
+    if (!l.basis.empty()) o << " [" << l.basis << "]";
+    o << "\n";
   };
   lim("forward ", m.limits.forward);
   lim("aft     ", m.limits.aft);
@@ -120,6 +126,28 @@ std::string margins_table(const Margins& m) {
   lim("  (force per g)   ", m.limits.aft_force_per_g);
   o << "  stated envelope " << pct(m.envelope_forward) << " .. " << pct(m.envelope_aft) << "\n";
   return o.str();
+}
+
+std::string per_g_stop_text(const PerGCurve& c) {
+  char line[512];
+  if (c.complete) {
+    std::snprintf(line, sizeof line, "per-g curve: every load factor up to %.2f g trims", c.n_max);
+    return line;
+  }
+  const double last = c.points.empty() ? std::nan("") : c.points.back().load_factor;
+  if (c.numerical)
+    std::snprintf(line, sizeof line,
+                  "per-g curve stops at %.2f g: the trim at %.2f g failed numerically (not a limit of the airplane): %s",
+                  last, c.stop_load_factor, c.stop_reason.c_str());
+  else {
+    const char* why = c.stop == TrimLimit::stall           ? "the wing stalls"
+                      : c.stop == TrimLimit::elevator_stop ? "the elevator reaches its stop"
+                      : c.stop == TrimLimit::tab_stop      ? "the tab is outside its range"
+                                                           : "a limit of the airplane";
+    std::snprintf(line, sizeof line, "per-g curve stops at %.2f g, the last load factor that trims; at %.2f g %s (%s)",
+                  last, c.stop_load_factor, why, c.stop_reason.c_str());
+  }
+  return line;
 }
 
 json modes_json(const ModesResult& r) {

@@ -11,6 +11,8 @@ namespace fp {
 
 nlohmann::json margins_json(const Margins& m);
 std::string margins_table(const Margins& m);
+// One line saying where the stick force per g curve stops and why (or that it is complete).
+std::string per_g_stop_text(const PerGCurve& c);
 nlohmann::json modes_json(const ModesResult& r);
 std::string modes_table(const ModesResult& r);
 // State-space matrices as CSV (first row: column names with units; first column: row names).

@@ -283,8 +283,8 @@ ReportData make_report(const ReportOptions& o) {
     for (const auto& x : o.sample) c += " --sample " + shell_quote(x);
     if (o.samples != 40) c += " --samples " + std::to_string(o.samples);
     if (o.seed != 1) c += " --seed " + std::to_string(o.seed);
-    if (o.min_margin != 0.05) c += " --min-margin " + fmt_g(o.min_margin);
-    if (o.min_force_per_g != 13.3) c += " --min-force-per-g " + fmt_g(o.min_force_per_g);
+    if (o.min_margin != kDefaultCriteria.min_static_margin) c += " --min-margin " + fmt_g(o.min_margin);
+    if (o.min_force_per_g != kDefaultCriteria.min_force_per_g) c += " --min-force-per-g " + fmt_g(o.min_force_per_g);
     if (o.pdf) c += " --pdf";
     d.command = c;
   }
@@ -298,15 +298,13 @@ ReportData make_report(const ReportOptions& o) {
   d.trim_start = scenario_trim(*plant, s);
   {
     const auto st = wing_stall(s.airplane.wing.lift);
-    const double rho = isa_at(geopotential_altitude(s.condition.altitude)).density;
     d.cl_max = st.CLmax;
-    d.stall_speed = std::sqrt(2.0 * plant->m * units::g0 / (rho * s.airplane.wing.area * st.CLmax));
+    d.stall_speed = stall_speed(s.airplane, s.condition.altitude);
   }
 
   // 3. static
   MarginsOptions mo;
-  mo.min_static_margin = o.min_margin;
-  mo.min_force_per_g = o.min_force_per_g;
+  mo.criteria = {o.min_margin, o.min_force_per_g};
   d.margins = compute_margins(s, mo);
   for (int i = 0; i <= 10; ++i) {
     TrimRequest r;

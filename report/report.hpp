@@ -38,8 +38,8 @@ struct ReportOptions {
   std::vector<std::string> sample;      // KEY=uniform(LO,HI) | KEY=normal(M,SD): replaces the default
   int samples = 40;                     // random samples of the uncertainty band
   std::uint64_t seed = 1;
-  double min_margin = 0.05;             // minimum stick-free static margin for the aft CG limit
-  double min_force_per_g = 13.3;        // minimum stick force per g for the aft CG limit [N/g]
+  double min_margin = kDefaultCriteria.min_static_margin;  // minimum stick-free static margin for the aft CG limit
+  double min_force_per_g = kDefaultCriteria.min_force_per_g;  // minimum stick force per g for the aft CG limit [N/g]
   bool pdf = false;
   int jobs = 2;                         // threads for the sweeps and the sampled runs
 };

@@ -933,19 +933,31 @@ double parse_quantity(const std::string& key, const std::string& text, const std
 // ---------------------------------------------------------------------------------------
 // Relations between keys, and the model's own checks.
 
-void validate(const Scenario& s) {
-  const auto where = [&s](const std::string& key) {
+namespace {
+
+// Where a key was set (the loader's origins), for messages about relations between keys.
+struct Where {
+  const Scenario& s;
+  KeyOrigin operator()(const std::string& key) const {
     const auto it = s.origins.find(key);
     return it != s.origins.end() ? it->second : KeyOrigin{s.path, 0, 0, ""};
-  };
-  const auto where_any = [&](std::initializer_list<const char*> ks) {
+  }
+  // the first of the keys that was set somewhere
+  KeyOrigin any(std::initializer_list<const char*> ks) const {
     for (const char* k : ks)
-      if (s.origins.count(k)) return where(k);
+      if (s.origins.count(k)) return (*this)(k);
     return KeyOrigin{s.path, 0, 0, ""};
-  };
-  Scenario& m = const_cast<Scenario&>(s);  // read through the table's accessors only
+  }
+};
 
-  // Each key on its own (values may have been set in code rather than read from a file).
+std::string angle_text(double v) {
+  static const Key& angle_key = *keys::find("elevator.delta_min", false);
+  return keys::value_text(angle_key, v);
+}
+
+// Each key on its own (values may have been set in code rather than read from a file).
+void validate_each_key(const Scenario& s, const Where& where) {
+  Scenario& m = const_cast<Scenario&>(s);  // read through the table's accessors only
   for (const auto& k : keys::table_keys()) {
     const std::string key = k.name;
     switch (k.kind) {
@@ -976,12 +988,14 @@ void validate(const Scenario& s) {
       case Kind::text: break;
     }
   }
+}
 
+// Stops, tab range, envelope, reversibility, run times.
+void validate_relations(const Scenario& s, const Where& where) {
+  const auto deg = angle_text;
   const auto& ap = s.airplane;
   const auto& el = ap.elevator;
   const auto& ci = ap.circuit;
-  const Key& angle_key = *keys::find("elevator.delta_min", false);
-  const auto deg = [&](double v) { return keys::value_text(angle_key, v); };
 
   if (!(el.delta_min < 0.0))
     fail(where("elevator.delta_min"), "elevator.delta_min",
@@ -990,31 +1004,31 @@ void validate(const Scenario& s) {
     fail(where("elevator.delta_max"), "elevator.delta_max",
          "the trailing-edge-down stop must be above 0 (delta_min < 0 < delta_max); got " + deg(el.delta_max));
   if (!(ci.tab_min < ci.tab_max))
-    fail(where_any({"circuit.tab_max", "circuit.tab_min"}), "circuit.tab_min, circuit.tab_max",
+    fail(where.any({"circuit.tab_max", "circuit.tab_min"}), "circuit.tab_min, circuit.tab_max",
          "the tab range is empty: tab_min (" + deg(ci.tab_min) + ") must be below tab_max (" + deg(ci.tab_max) + ")");
   if (!(s.envelope.cg_forward < s.envelope.cg_aft))
-    fail(where_any({"envelope.cg_aft", "envelope.cg_forward"}), "envelope.cg_forward, envelope.cg_aft",
+    fail(where.any({"envelope.cg_aft", "envelope.cg_forward"}), "envelope.cg_forward, envelope.cg_aft",
          "the forward CG limit (" + keys::fmt(s.envelope.cg_forward) + ") must be ahead of, i.e. less than, the aft limit (" +
              keys::fmt(s.envelope.cg_aft) + ")");
   if (s.envelope.min_speed > 0.0 && s.envelope.max_speed > 0.0 && !(s.envelope.min_speed < s.envelope.max_speed))
-    fail(where_any({"envelope.max_speed", "envelope.min_speed"}), "envelope.min_speed, envelope.max_speed",
+    fail(where.any({"envelope.max_speed", "envelope.min_speed"}), "envelope.min_speed, envelope.max_speed",
          "the envelope's min_speed must be below its max_speed");
   if (ci.reversible && el.ch_delta == 0.0)
-    fail(where_any({"elevator.ch_delta", "circuit.reversible"}), "elevator.ch_delta",
+    fail(where.any({"elevator.ch_delta", "circuit.reversible"}), "elevator.ch_delta",
          "is 0 while circuit.reversible = true: the floating elevator's angle and the stick-free neutral point divide "
          "by ch_delta, so a reversible circuit needs a non-zero value (typically negative, e.g. -0.45 /rad); only an "
          "irreversible circuit (circuit.reversible = false) may have 0");
   if (!ci.reversible && s.run.controls != ControlsChoice::held)
-    fail(where_any({"run.controls", "circuit.reversible"}), "run.controls",
+    fail(where.any({"run.controls", "circuit.reversible"}), "run.controls",
          std::string("= \"") + (s.run.controls == ControlsChoice::free ? "free" : "both") +
              "\" asks for a stick-free case, but in an irreversible circuit (circuit.reversible = false) "
              "the elevator cannot float: held case only; use \"held\"");
   if (s.run.let_go_time > s.run.duration)
-    fail(where_any({"run.let_go_time", "run.duration"}), "run.let_go_time",
+    fail(where.any({"run.let_go_time", "run.duration"}), "run.let_go_time",
          "= " + keys::fmt(s.run.let_go_time) + " s is after the end of the run (run.duration = " +
              keys::fmt(s.run.duration) + " s)");
   if (s.run.output_step > s.run.duration)
-    fail(where_any({"run.output_step", "run.duration"}), "run.output_step",
+    fail(where.any({"run.output_step", "run.duration"}), "run.output_step",
          "= " + keys::fmt(s.run.output_step) + " s is longer than the run (run.duration = " + keys::fmt(s.run.duration) +
              " s)");
   if (!s.trim.tab_auto && (s.trim.tab < ci.tab_min || s.trim.tab > ci.tab_max))
@@ -1022,6 +1036,11 @@ void validate(const Scenario& s) {
          "= " + deg(s.trim.tab) + " is outside the tab's range circuit.tab_min..tab_max = " + deg(ci.tab_min) + ".." +
              deg(ci.tab_max));
 
+}
+
+void validate_timeline(const Scenario& s, const Where& where) {
+  const auto& ci = s.airplane.circuit;
+  const auto deg = angle_text;
   // The timeline.
   const auto ev_keys = keys::event_keys();
   const char* action_names[] = {"let_go", "take_hold", "tab", "pulse", "elevator"};
@@ -1065,6 +1084,9 @@ void validate(const Scenario& s) {
                   "none: use tab or elevator events");
   }
 
+}
+
+void validate_gusts(const Scenario& s, const Where& where) {
   // The gusts: each must begin within the run.
   const auto gu_keys = keys::gust_keys();
   const double closing = s.condition.airspeed * std::cos(s.condition.flight_path) + s.gust_front_speed;
@@ -1124,9 +1146,14 @@ void validate(const Scenario& s) {
     }
   }
 
+}
+
+// Turbulence, and whether the airplane is physically possible.
+void validate_turbulence_and_model(const Scenario& s, const Where& where) {
+  const auto& ap = s.airplane;
   // Turbulence: it must begin within the run.
   if (s.turbulence.model != TurbulenceKind::none && s.turbulence.start_time > s.run.duration)
-    fail(where_any({"turbulence.start_time", "run.duration"}), "turbulence.start_time",
+    fail(where.any({"turbulence.start_time", "run.duration"}), "turbulence.start_time",
          "= " + keys::fmt(s.turbulence.start_time) + " s is after the end of the run (run.duration = " +
              keys::fmt(s.run.duration) + " s)");
 
@@ -1138,6 +1165,63 @@ void validate(const Scenario& s) {
     first = first.substr(0, first.find(','));
     fail(where(first), e.keys, e.message);
   }
+}
+
+}  // namespace
+
+void validate(const Scenario& s) {
+  const Where where{s};
+  validate_each_key(s, where);
+  validate_relations(s, where);
+  validate_timeline(s, where);
+  validate_gusts(s, where);
+  validate_turbulence_and_model(s, where);
+}
+
+std::string ScenarioWarning::what() const {
+  return ScenarioError{where.file, where.line, where.column, key, reason}.what();
+}
+
+// Implausible but legal inputs. Each check says what it compares and why the bound holds.
+std::vector<ScenarioWarning> plausibility_warnings(const Scenario& s) {
+  const Where where{s};
+  std::vector<ScenarioWarning> w;
+  const auto warn = [&](const std::string& key, std::string reason) {
+    KeyOrigin o = where(key);
+    if (!o.via.empty()) reason += " (from " + o.via + ")";
+    w.push_back({o, key, std::move(reason)});
+  };
+  const auto& ap = s.airplane;
+  const auto& el = ap.elevator;
+  const auto& t = ap.tail;
+  // tail.area includes the elevator (model/airplane.hpp): the elevator's area aft of the hinge
+  // is a part of it (geometry)
+  if (el.area > t.area)
+    warn("elevator.area", "= " + keys::fmt(el.area) + " m2 is larger than the whole horizontal tail (tail.area = " +
+                              keys::fmt(t.area) + " m2, which includes the elevator)");
+  // the hinge line and the tail's a.c. both lie on the tail's chord, which is shorter than
+  // sqrt(S_t) for any tail aspect ratio above 1 (c = S/b = sqrt(S/AR)): geometry
+  const double reach = std::sqrt(t.area);
+  const double gap = el.x_hinge - t.x_ac;
+  if (std::abs(gap) > reach)
+    warn("elevator.x_hinge", "= " + keys::fmt(el.x_hinge) + " m puts the hinge line " + keys::fmt(std::abs(gap)) +
+                                 " m " + (gap > 0 ? "aft" : "ahead") + " of the tail's a.c. (tail.x_ac = " +
+                                 keys::fmt(t.x_ac) + " m); both lie on the tail's chord, which is shorter than sqrt(tail.area) = " +
+                                 keys::fmt(reach) + " m for any tail aspect ratio above 1");
+  // hinge-moment derivatives are a few tenths per radian (USAF TPS, Flying Qualities Phase vol.
+  // II ch. 5; Etkin and Reid sec. 2.6 examples: about -0.1 .. -0.9 /rad); a value 57 times too
+  // small is what a per-degree figure typed as a plain number gives
+  const std::pair<const char*, double> hinge_derivatives[] = {
+      {"elevator.ch_alpha", el.ch_alpha}, {"elevator.ch_delta", el.ch_delta}, {"elevator.ch_tab", el.ch_tab}};
+  for (const auto& [key, v] : hinge_derivatives)
+    if (v != 0.0 && std::abs(v) < 0.03)
+      warn(key, "= " + keys::fmt(v) + " /rad is the size of a per-degree value (hinge-moment derivatives are about "
+                "0.1 .. 0.9 /rad); if it was meant per degree, write \"" + keys::fmt(v) + " /deg\"");
+  if (ap.mass.h_cg < s.envelope.cg_forward || ap.mass.h_cg > s.envelope.cg_aft)
+    warn("mass.cg", "= " + keys::fmt(ap.mass.h_cg) + " (fraction of MAC) is outside the stated envelope " +
+                        keys::fmt(s.envelope.cg_forward) + " .. " + keys::fmt(s.envelope.cg_aft) +
+                        " (envelope.cg_forward .. envelope.cg_aft)");
+  return w;
 }
 
 // ---------------------------------------------------------------------------------------

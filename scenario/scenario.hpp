@@ -192,6 +192,17 @@ void derive_gust_values(Scenario& s);
 // throw ScenarioError naming the keys. load/parse call it; call it after set_value.
 void validate(const Scenario& s);
 
+// An input that is legal but implausible (an elevator larger than its tail, a hinge line far from
+// the tail, hinge derivatives of the size of per-degree values, a CG outside the stated envelope).
+struct ScenarioWarning {
+  KeyOrigin where;      // the file and line that set the key
+  std::string key;      // dotted key
+  std::string reason;   // what is implausible and why
+  std::string what() const;  // "file:line:column: key: reason"
+};
+// The warnings of a scenario that validate() accepted (used by `check`; the window may show them).
+std::vector<ScenarioWarning> plausibility_warnings(const Scenario& s);
+
 // Write the scenario (all keys, SI values with units) as TOML that load_scenario reads back.
 std::string to_toml(const Scenario& s);
 

@@ -163,3 +163,90 @@ TEST_CASE("modes: held beside free, with the JSON keys documented") {
   CHECK(elev);  // the free elevator adds its own mode
   CHECK(ph);
 }
+
+TEST_CASE("forces runs on every bundled case and says where the per-g curve stops") {
+  // the per-g curve is trimmed in steady pull-ups at the trim speed: it must stop at the last
+  // load factor that trims (the stall, a stop or the tab) instead of failing (exit 0)
+  int cases = 0;
+  for (const auto& e : fs::directory_iterator(kSrc + "/scenarios")) {
+    if (e.path().extension() != ".toml") continue;
+    ++cases;
+    CAPTURE(e.path().string());
+    const Result r = run("forces " + e.path().string());
+    CAPTURE(r.out);
+    CHECK(r.status == 0);
+    CHECK(r.out.find("load_factor [-],stick_force [N]") != std::string::npos);
+    CHECK(r.out.find("per-g curve") != std::string::npos);
+  }
+  CHECK(cases >= 4);
+}
+
+TEST_CASE("margins: CG limits from tool defaults say so, limits the user set do not") {
+  const std::string f = kSrc + "/scenarios/orvane_gust.toml";
+  const Result d = run("margins " + f);
+  REQUIRE(d.status == 0);
+  CHECK(d.out.find("tool default, not a criterion") != std::string::npos);
+  const Result dj = run("margins " + f + " --json");
+  REQUIRE(dj.status == 0);
+  const auto j = nlohmann::json::parse(dj.out);
+  CHECK(j["cg_limits"]["aft_candidates"]["minimum_static_margin"]["basis"] == "tool default, not a criterion");
+  CHECK(j["cg_limits"]["aft_candidates"]["minimum_stick_force_per_g"]["basis"] == "tool default, not a criterion");
+  const Result u = run("margins " + f + " --json --min-margin 0.05 --min-force-per-g 13.3");
+  REQUIRE(u.status == 0);
+  const auto ju = nlohmann::json::parse(u.out);
+  CHECK(ju["cg_limits"]["aft_candidates"]["minimum_static_margin"]["basis"] == "set by the user");
+  CHECK(ju["cg_limits"]["aft_candidates"]["minimum_stick_force_per_g"]["basis"] == "set by the user");
+}
+
+TEST_CASE("check warns on implausible but legal inputs and shows the flight condition") {
+  struct Case {
+    const char* name;
+    std::string extra;   // appended to the case file
+    const char* key;     // the key the warning names
+    const char* reason;  // a piece of the reason
+  };
+  // each bound is explained beside its check in scenario/scenario.cpp (plausibility_warnings)
+  const Case cases[] = {
+      {"elevator larger than the tail (2.2 m2)", "[elevator]\narea = 3.0\n", "elevator.area", "larger than"},
+      {"hinge line 3.4 m aft of the tail a.c.", "[elevator]\nx_hinge = 8.0\n", "elevator.x_hinge", "aft"},
+      {"Ch_delta typed per degree as a plain number", "[elevator]\nch_delta = -0.0065\n", "elevator.ch_delta", "/deg"},
+      {"CG outside the stated envelope 0.15..0.30", "[mass]\ncg = 0.33\n", "mass.cg", "envelope"},
+  };
+  for (const auto& c : cases) {
+    CAPTURE(c.name);
+    const fs::path d = temp_dir("check_warn");
+    const std::string f = case_file(d, c.extra);
+    const Result r = run("check " + f);
+    CAPTURE(r.out);
+    CHECK(r.status == 0);
+    const auto w = r.out.find("warning: " + f + ":");  // file and line
+    REQUIRE(w != std::string::npos);
+    const std::string line = r.out.substr(w, r.out.find('\n', w) - w);
+    CHECK(line.find(c.key) != std::string::npos);
+    CHECK(line.find(c.reason) != std::string::npos);
+  }
+  SUBCASE("the demo case: no warning, and the flight condition") {
+    const Result r = run("check " + kSrc + "/scenarios/orvane_gust.toml");
+    CAPTURE(r.out);
+    CHECK(r.status == 0);
+    CHECK(r.out.find("warning:") == std::string::npos);
+    for (const char* piece : {"flight condition", "kg", "% MAC", "altitude", "TAS", "trim mode"})
+      CHECK(r.out.find(piece) != std::string::npos);
+  }
+}
+
+TEST_CASE("trim names the cause instead of a bare non-convergence") {
+  const std::string f = kSrc + "/scenarios/orvane_gust.toml";
+  // the Orvane T2's elevator stops are -25..15 deg (scenarios/aircraft/orvane_t2.toml)
+  const Result beyond = run("trim " + f + " --tab-for-elevator -30");
+  CAPTURE(beyond.out);
+  CHECK(beyond.status == 2);
+  CHECK(beyond.out.find("beyond its stops") != std::string::npos);
+  // 14 deg trailing edge down held hands-off in level flight: the solution runs away to speeds
+  // far beyond the engine's thrust; the message says so rather than "did not converge"
+  const Result runaway = run("trim " + f + " --tab-for-elevator 14");
+  CAPTURE(runaway.out);
+  CHECK(runaway.status == 2);
+  CHECK(runaway.out.find("throttle") != std::string::npos);
+  CHECK(runaway.out.find("did not converge") == std::string::npos);
+}
