@@ -61,9 +61,9 @@ sees the local flow at its aerodynamic centre, including the pitch-rate term):
     dalpha_tl = w/V + q l_t/V            (local flow angle at the tail a.c., l_t aft of the CG)
     dalpha_t  = dalpha_tl - d eps,   d eps = (d eps/d alpha) dalpha_w  (quasi-steady downwash), or
               with a first-order lag:  tau_eps d eps' = (d eps/d alpha) dalpha_w - d eps,
-              tau_eps = l_wt / V, l_wt the wing-to-tail a.c. distance (the time the downwash
-              takes to reach the tail, Etkin and Reid sec. 5.5 on the alpha-dot derivatives, section number from memory; a
-              first-order stage is one way to model that delay, the one chosen here)
+              tau_eps = l_wt / V, l_wt the wing-to-tail a.c. distance: the time the downwash
+              takes to reach the tail (Etkin and Reid sec. 5.5 on the alpha-dot derivatives,
+              section number from memory); one first-order stage is the model chosen here
     dCL_w = a dalpha_w,  dCL_t = a_t (dalpha_t + tau delta_e),  dCD = 2 k CL_w0 dCL_w
     dqbar = rho V u + (V^2/2) (d rho/dh) h          (ISA troposphere density gradient)
     dL_w = dqbar S CL_w0 + qbar S dCL_w,   dD = dqbar S CD_0 + qbar S dCD
@@ -72,7 +72,7 @@ sees the local flow at its aerodynamic centre, including the pitch-rate term):
     dZ = -dL_w - D_0 dalpha_w - dL_t
     dM = x_w (dL_w + D_0 dalpha_w) - l_t dL_t + dqbar S c Cm_wb0
          + qbar S c (Cm_alpha,fus dalpha_w + Cm_q q c/(2V)) - S_e g sin(theta_0 + delta_0) delta_e
-Hinge moment (Etkin and Reid sec. 2.5; Jones and Cohen):
+Hinge moment (Etkin and Reid sec. 2.5, section number from memory; Jones and Cohen):
     Ch = Ch_0 + Ch_alpha alpha_t + Ch_delta delta_e + Ch_tab delta_tab + Ch_ddot delta_e' c_e/(2V)
     dH_aero = eta (dqbar S_e c_e Ch_trim + qbar S_e c_e dCh)
     dH_circuit = -(c_stick delta_e' + k_centering delta_e) / G^2
