@@ -407,8 +407,9 @@ void eigen_side(const Scenario& base, const std::vector<double>& cg, const std::
   b.set_aside = set_aside_text(s);
   if (s.oscillatory) {
     b.closed_form_applies = false;
-    b.closed_form_note = "the root that crosses is a complex pair (" + s.mode +
-                         "): an oscillatory divergence, which the static (neutral-point) formula does not predict";
+    b.closed_form_note = "the root that crosses is a complex pair (" + s.mode + ", period " +
+                         fixed(2.0 * std::numbers::pi / s.root.imag(), 1) +
+                         " s): an oscillatory divergence, which the static (neutral-point) formula does not predict";
   }
 }
 
