@@ -277,7 +277,21 @@ double time_domain_growth(const Scenario& s, bool free, double seconds, double t
   if (undisturbed) return growth_of(small_motion(b.trace(), nullptr, t, t0));
   Simulation a(plant, scenario_gust_field(s), t, rs, rc, s.events);
   a.run_to_end();
-  return growth_of(small_motion(b.trace(), &a.trace(), t, t0));
+  // the probe can reach the airplane later than its nominal time (the scenario's own
+  // disturbance changes the ground speed): the window starts when the two runs part (they are
+  // identical, step for step, until then) plus the probe's length and 2 s
+  const Trace& ta = a.trace();
+  const Trace& tb = b.trace();
+  double t1 = t0;
+  const double V = s.condition.airspeed * std::cos(s.condition.flight_path);
+  const DiscreteGust pg = probe_gust(s);
+  for (std::size_t i = 0; i < std::min(ta.size(), tb.size()); ++i)
+    if (ta.ch[ch_airspeed][i] != tb.ch[ch_airspeed][i] || ta.ch[ch_alpha][i] != tb.ch[ch_alpha][i]) {
+      const double lt = s.airplane.tail.x_ac - s.airplane.mass.h_cg * s.airplane.wing.mac;
+      t1 = std::max(t0, ta.ch[ch_time][i] + (2.0 * pg.length + lt) / V + 2.0);
+      break;
+    }
+  return growth_of(small_motion(tb, &ta, t, t1));
 }
 
 PointResult evaluate_point(const Scenario& base, const std::vector<std::string>& keys,
@@ -407,8 +421,9 @@ void eigen_side(const Scenario& base, const std::vector<double>& cg, const std::
   b.set_aside = set_aside_text(s);
   if (s.oscillatory) {
     b.closed_form_applies = false;
-    b.closed_form_note = "the root that crosses is a complex pair (" + s.mode +
-                         "): an oscillatory divergence, which the static (neutral-point) formula does not predict";
+    b.closed_form_note = "the root that crosses is a complex pair (" + s.mode + ", period " +
+                         fixed(2.0 * std::numbers::pi / s.root.imag(), 1) +
+                         " s): an oscillatory divergence, which the static (neutral-point) formula does not predict";
   }
 }
 

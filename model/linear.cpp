@@ -264,6 +264,20 @@ std::vector<Mode> modes(const LinearModel& lm) {
     m.neutral_reason = "altitude root, neutral by construction: a neighbouring trim exists at every altitude "
                        "(thrust independent of density and speed); not a pitch motion";
   }
+  // one short period and one phugoid: when two airframe oscillations take the same name, the
+  // one nearer its classical approximation keeps it and the other is the "third oscillatory"
+  // mode that a floating elevator can make at aft CG (Etkin and Reid's name for it; from memory)
+  const Approx ap = approximations(lm);
+  for (const auto& [name, ref] : {std::pair<const char*, double>{"short period", ap.sp}, {"phugoid", ap.ph}}) {
+    Mode* keep = nullptr;
+    for (Mode& m : out) {
+      if (m.name != name || !(ref > 0)) continue;
+      if (!keep) { keep = &m; continue; }
+      Mode* other = &m;
+      if (std::abs(std::log(m.frequency / ref)) < std::abs(std::log(keep->frequency / ref))) std::swap(keep, other);
+      other->name = "third oscillatory";
+    }
+  }
   std::sort(out.begin(), out.end(), [](const Mode& a, const Mode& b) { return a.frequency < b.frequency; });
   return out;
 }

@@ -230,3 +230,42 @@ TEST_CASE("time-domain boundary reads the airplane's own growth, not a persisten
     }
   }
 }
+
+TEST_CASE("lag roots are not the short period and a slow hands-off oscillation is not either") {
+  // Corrimo MG (four-stage downwash-lag chain) at 46 % MAC. References: Lanchester's phugoid,
+  // omega = sqrt(2) g / V (Etkin and Reid, "Dynamics of Flight", sec. 6.3; Nelson, "Flight
+  // Stability and Automatic Control", sec. 4.3), and the two-state short period,
+  // omega^2 = |Z_w M_q - M_w u0| from the (w, q) block of A (Nelson sec. 4.4). The chain's own
+  // roots (the -21.5 +- 3.6j pair) lie far above both and must be named "downwash lag"; at most
+  // one mode is the short period (within a factor 2.5 of its reference: the approximation leaves
+  // out the lag and the floating elevator) and one the phugoid (not above 2.5 x Lanchester's); the
+  // hands-off 10 s oscillation, named "short period" before, is neither.
+  const std::string file = std::string(FP_SOURCE_DIR) + "/scenarios/corrimo_letgo.toml";
+  const ModesResult r = compute_modes(load_scenario(file, {"cg=0.46"}));
+  for (const auto& pr : {std::pair{&r.held, &r.held_lm}, std::pair{&r.free, &r.free_lm}}) {
+    const auto& ms = *pr.first;
+    const LinearModel& lm = *pr.second;
+    const double wph = std::sqrt(2.0) * 9.80665 / lm.V;
+    const double wsp = std::sqrt(std::abs(lm.A(1, 1) * lm.A(2, 2) - lm.A(1, 2) * lm.A(2, 1)));
+    int n_sp = 0, n_ph = 0;
+    bool lag_pair = false;
+    for (const auto& m : ms) {
+      if (m.name == "short period") {
+        ++n_sp;
+        CHECK(m.frequency < 2.5 * wsp);
+        CHECK(m.frequency > wsp / 2.5);
+      }
+      if (m.name == "phugoid") {  // near the neutral point the phugoid slows well below
+        ++n_ph;                     // Lanchester's figure (from memory), it never runs far above it
+        CHECK(m.frequency < 2.5 * wph);
+      }
+      if (m.oscillatory && m.root.real() < -15.0) {
+        CHECK(m.name == "downwash lag");
+        lag_pair = true;
+      }
+    }
+    CHECK(lag_pair);
+    CHECK(n_sp <= 1);
+    CHECK(n_ph <= 1);
+  }
+}
