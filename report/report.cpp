@@ -306,18 +306,7 @@ ReportData make_report(const ReportOptions& o) {
   MarginsOptions mo;
   mo.criteria = {o.min_margin, o.min_force_per_g};
   d.margins = compute_margins(s, mo);
-  for (int i = 0; i <= 10; ++i) {
-    TrimRequest r;
-    r.condition = s.condition;
-    r.tab = d.margins.trim_tab;
-    r.load_factor = 1.0 + 0.25 * i;
-    r.check_limits = false;
-    try {
-      d.force_per_g_curve.emplace_back(r.load_factor, trim(*plant, r).stick_force);
-    } catch (const TrimError&) {
-      break;
-    }
-  }
+  d.force_per_g = force_per_g_curve(*plant, s.condition, d.margins.trim_tab, 3.5, 0.25);
 
   // 4. dynamic
   d.modes = compute_modes(s);

@@ -106,7 +106,7 @@ struct ReportData {
   double stall_speed = 0;               // 1 g, at the condition's altitude [m/s TAS]
   double cl_max = 0;
   Margins margins;
-  std::vector<std::pair<double, double>> force_per_g_curve;  // (n, stick force [N]) at the hands-off tab
+  PerGCurve force_per_g;  // stick force against load factor at the hands-off tab, to 3.5 g or where trim ends
   ModesResult modes;
   std::string cg_range_text;            // as used ("0.13:0.44 step 0.01")
   SweepResult cg_sweep;

@@ -827,7 +827,7 @@ std::vector<DataFile> data_files(const ReportData& d) {
            csv_num(units::to_deg(p.elevator)) + "," + csv_num(units::to_deg(p.alpha)) + "\n";
     f.push_back({"data/stick_force_speed.csv", "section 3: stick force against speed, tab fixed", c});
     std::string g = "load_factor [-],stick_force [N]\n";
-    for (const auto& [n, F] : d.force_per_g_curve) g += csv_num(n) + "," + csv_num(F) + "\n";
+    for (const auto& pt : d.force_per_g.points) g += csv_num(pt.load_factor) + "," + csv_num(pt.stick_force) + "\n";
     f.push_back({"data/stick_force_per_g.csv", "section 3: stick force against load factor", g});
   }
   f.push_back({"data/modes.json", "section 4: roots and modes held and free", dump(modes_json(d.modes))});
@@ -1211,27 +1211,29 @@ void page_static(Page& pg, PageCtx& c) {
       p.y = {"stick force, pull +", "N"};
       p.y.include_zero = true;
       std::vector<double> nx, fy;
-      for (const auto& [n, F] : d.force_per_g_curve) {
-        nx.push_back(n);
-        fy.push_back(F);
+      for (const auto& pt : d.force_per_g.points) {
+        nx.push_back(pt.load_factor);
+        fy.push_back(pt.stick_force);
       }
       p.series.push_back(line("model, tab at the hands-off setting", nx, fy, svg::Style::first, svg::Marker::dot));
       h += pg.fig(svg::render(p),
                   "Stick force against load factor at " + kt(m.trim_speed) + ": " + number(m.force_per_g, 1) + " N/g (" +
                       number(m.force_per_g / units::lbf, 2) + " lbf/g) at 1 g with everything included; " +
                       number(m.force_per_g_aero, 1) + " N/g from the aerodynamic hinge moments alone; closed form " +
-                      number(m.cf.force_per_g, 1) + " N/g. Elevator per g: " + degs(m.elevator_per_g, 2) + " deg/g.");
+                      number(m.cf.force_per_g, 1) + " N/g. Elevator per g: " + degs(m.elevator_per_g, 2) + " deg/g. " +
+                      esc(per_g_stop_text(d.force_per_g)));
     }
     h += "<h3>CG limits and what sets each</h3>\n";
     {
       Table t;
       t.head = {"limit", "CG [% MAC]", "set by"};
       t.numeric = {false, true, false};
-      t.rows.push_back({"forward", pct(m.limits.forward.cg), esc(m.limits.forward.reason)});
-      t.rows.push_back({"<b>aft</b>", "<b>" + pct(m.limits.aft.cg) + "</b>", esc(m.limits.aft.reason)});
-      t.rows.push_back({"\u2003aft candidate: stick-free neutral point", pct(m.limits.aft_free_np.cg), esc(m.limits.aft_free_np.reason)});
-      t.rows.push_back({"\u2003aft candidate: minimum static margin", pct(m.limits.aft_margin.cg), esc(m.limits.aft_margin.reason)});
-      t.rows.push_back({"\u2003aft candidate: minimum stick force per g", pct(m.limits.aft_force_per_g.cg), esc(m.limits.aft_force_per_g.reason)});
+      auto set_by = [](const CgLimit& l) { return esc(l.reason) + (l.basis.empty() ? "" : " <i>[" + esc(l.basis) + "]</i>"); };
+      t.rows.push_back({"forward", pct(m.limits.forward.cg), set_by(m.limits.forward)});
+      t.rows.push_back({"<b>aft</b>", "<b>" + pct(m.limits.aft.cg) + "</b>", set_by(m.limits.aft)});
+      t.rows.push_back({"\u2003aft candidate: stick-free neutral point", pct(m.limits.aft_free_np.cg), set_by(m.limits.aft_free_np)});
+      t.rows.push_back({"\u2003aft candidate: minimum static margin", pct(m.limits.aft_margin.cg), set_by(m.limits.aft_margin)});
+      t.rows.push_back({"\u2003aft candidate: minimum stick force per g", pct(m.limits.aft_force_per_g.cg), set_by(m.limits.aft_force_per_g)});
       t.rows.push_back({"stated envelope", pct(m.envelope_forward) + " to " + pct(m.envelope_aft), "the airplane's data ([envelope])"});
       h += table_html(t);
       h += "<p class=\"note\">The minimum static margin (" + pct(d.options.min_margin) + " % MAC) and stick force per g (" +

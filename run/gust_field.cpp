@@ -3,6 +3,7 @@
 
 #include <cmath>
 
+#include "model/dynamics.hpp"
 #include "model/units.hpp"
 
 namespace fp {
@@ -29,8 +30,8 @@ ResolvedTurbulence resolve_turbulence(const Scenario& s) {
   // wing: cover the tail's position at t = 0 to the wing's at the end, with a margin for the
   // airspeed changes the turbulence itself causes.
   const Airplane& ap = s.airplane;
-  const double wing_tail = ap.tail.x_ac - ap.wing.h_ac * ap.wing.mac;
-  const double cg_tail = std::abs(ap.tail.x_ac - ap.mass.h_cg * ap.wing.mac);
+  const double wing_tail = tail_arm(ap, ap.wing.h_ac);
+  const double cg_tail = std::abs(tail_arm(ap, ap.mass.h_cg));
   // default spacing: half the wing-to-tail distance, so that the shortest wavelength the
   // record holds (2 dx) is the distance between the surfaces; at most a tenth of the smaller
   // scale length (low altitude).

@@ -4,6 +4,8 @@
 #include <algorithm>
 #include <cmath>
 
+#include "model/dynamics.hpp"
+
 namespace fp {
 
 double gust_closing_speed(const Scenario& s) {
@@ -14,7 +16,7 @@ double disturbances_over_time(const Scenario& s) {
   const double V = gust_closing_speed(s);
   // CG to the tail a.c. along the body axis (the last point of the airplane to meet a gust)
   const Airplane& a = s.airplane;
-  const double tail = a.tail.x_ac - a.mass.h_cg * a.wing.mac;
+  const double tail = tail_arm(a, a.mass.h_cg);
   double t = 0.0;
   for (const auto& g : s.gusts) {
     double len = 0.0;
