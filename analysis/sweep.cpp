@@ -19,7 +19,9 @@
 #include "model/linear.hpp"
 #include "model/static.hpp"
 #include "model/units.hpp"
+#include "scenario/gust_timing.hpp"
 #include "util/format.hpp"
+#include "util/rng.hpp"
 #include "util/parallel.hpp"
 #include "run/run.hpp"
 #include "analysis/signal.hpp"
@@ -40,37 +42,6 @@ std::string trim_ws(const std::string& s) {
 
 bool is_cg_key(const std::string& k) { return k == "cg" || k == "mass.cg"; }
 
-// splitmix64 (Steele, Lea, Flood, "Fast splittable pseudorandom number generators", OOPSLA
-// 2014): a per-point generator seeded by (seed, index), so that samples do not depend on the
-// order or the thread in which points run.
-struct SplitMix {
-  std::uint64_t s;
-  std::uint64_t next() {
-    std::uint64_t z = (s += 0x9e3779b97f4a7c15ULL);
-    z = (z ^ (z >> 30)) * 0xbf58476d1ce4e5b9ULL;
-    z = (z ^ (z >> 27)) * 0x94d049bb133111ebULL;
-    return z ^ (z >> 31);
-  }
-  double uniform() { return (static_cast<double>(next() >> 11) + 0.5) * (1.0 / 9007199254740992.0); }
-  double normal() {  // Box-Muller
-    const double u1 = uniform(), u2 = uniform();
-    return std::sqrt(-2.0 * std::log(u1)) * std::cos(2.0 * std::numbers::pi * u2);
-  }
-};
-
-// Time after which the scenario's disturbances are over: gusts passed, events done [s].
-double disturbance_end(const Scenario& s) {
-  const double V = s.condition.airspeed * std::cos(s.condition.flight_path);
-  const double lt = s.airplane.tail.x_ac - s.airplane.mass.h_cg * s.airplane.wing.mac;
-  double t = 0.0;
-  for (const auto& g : s.gusts) {
-    const double len = g.shape == GustShape::one_minus_cosine ? 2.0 * g.length : g.length;
-    t = std::max(t, (g.start + len + lt) / V);
-  }
-  for (const auto& e : s.events) t = std::max(t, e.time + e.duration);
-  return t;
-}
-
 // The probe of the time-domain boundary: a small vertical 1-cosine gust (0.5 m/s, gradient
 // distance 10 chords) that reaches the wing 1 s after the scenario's own disturbances are over
 // (at 1 s when it has none).
@@ -80,8 +51,7 @@ DiscreteGust probe_gust(const Scenario& s) {
   g.component = GustComponent::vertical;
   g.length = 10.0 * s.airplane.wing.mac;
   g.amplitude = 0.5;
-  const double V = s.condition.airspeed * std::cos(s.condition.flight_path);
-  g.start = V * (disturbance_end(s) + 1.0);
+  g.start = gust_closing_speed(s) * (disturbances_over_time(s) + 1.0);
   return g;
 }
 
@@ -262,7 +232,7 @@ double growth_from_trace(const Trace& tr, const Trim& t, double t0) { return gro
 double time_domain_growth(const Scenario& s, bool free, double seconds, double tol_scale) {
   const auto plant = scenario_plant(s);
   const Trim t = scenario_trim(*plant, s);
-  RunSettings rs = s.run;
+  RunSettings rs = run_settings(s);
   rs.duration = seconds;
   rs.output_step = 0.05;
   rs.rel_tol = 1e-9 * tol_scale;
@@ -272,7 +242,7 @@ double time_domain_growth(const Scenario& s, bool free, double seconds, double t
   probed.gusts.push_back(probe_gust(s));
   Simulation b(plant, scenario_gust_field(probed), t, rs, rc, s.events);
   b.run_to_end();
-  const double t0 = disturbance_end(probed) + 2.0;
+  const double t0 = disturbances_over_time(probed) + 2.0;
   const bool undisturbed = s.gusts.empty() && s.events.empty() && s.turbulence.model == TurbulenceKind::none;
   if (undisturbed) return growth_of(small_motion(b.trace(), nullptr, t, t0));
   Simulation a(plant, scenario_gust_field(s), t, rs, rc, s.events);
@@ -283,11 +253,11 @@ double time_domain_growth(const Scenario& s, bool free, double seconds, double t
   const Trace& ta = a.trace();
   const Trace& tb = b.trace();
   double t1 = t0;
-  const double V = s.condition.airspeed * std::cos(s.condition.flight_path);
+  const double V = gust_closing_speed(s);
   const DiscreteGust pg = probe_gust(s);
   for (std::size_t i = 0; i < std::min(ta.size(), tb.size()); ++i)
     if (ta.ch[ch_airspeed][i] != tb.ch[ch_airspeed][i] || ta.ch[ch_alpha][i] != tb.ch[ch_alpha][i]) {
-      const double lt = s.airplane.tail.x_ac - s.airplane.mass.h_cg * s.airplane.wing.mac;
+      const double lt = tail_arm(s.airplane, s.airplane.mass.h_cg);
       t1 = std::max(t0, ta.ch[ch_time][i] + (2.0 * pg.length + lt) / V + 2.0);
       break;
     }
@@ -360,7 +330,7 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
       fill(o.held.get(), r.diverged_held, r.divergence_time_held, r.peak_dn_held, r.peak_dalpha_held_deg);
       fill(o.free.get(), r.diverged_free, r.divergence_time_free, r.peak_dn_free, r.peak_dalpha_free_deg);
       // the slow motion's rate read from these same runs (scenario's own disturbance)
-      const double t0 = disturbance_end(s) + 2.0;
+      const double t0 = disturbances_over_time(s) + 2.0;
       r.growth_held = o.held ? growth_from_trace(o.held->trace, o.trim, t0) : nan_;
       r.growth_free = o.free ? growth_from_trace(o.free->trace, o.trim, t0) : nan_;
     }
@@ -531,7 +501,7 @@ SweepResult run_sweep(const SweepSpec& spec, int jobs, bool progress) {
       for (double y : axis(spec.vary[1])) grid.push_back({x, y});
   } else if (!spec.sample.empty()) {
     for (long i = 0; i < spec.samples; ++i) {
-      SplitMix g{spec.seed * 0x100000001b3ULL + static_cast<std::uint64_t>(i)};
+      SeededRng g(spec.seed, static_cast<std::uint64_t>(i));  // one stream a point: independent of --jobs
       std::vector<double> v;
       for (const auto& sm : spec.sample)
         v.push_back(sm.dist == Distribution::normal ? sm.a + sm.b * g.normal() : sm.a + (sm.b - sm.a) * g.uniform());

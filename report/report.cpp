@@ -1,6 +1,7 @@
 // report.cpp — assembling the reviewer's report from the existing analyses (see report.hpp).
 // The page itself is laid out in report_html.cpp.
 #include "report/report.hpp"
+#include "scenario/gust_timing.hpp"
 
 #include <algorithm>
 #include <atomic>
@@ -155,7 +156,7 @@ std::string shape_words(const DiscreteGust& g) {
 
 std::string describe_gusts(const Scenario& s) {
   std::string d;
-  const double V = s.condition.airspeed * std::cos(s.condition.flight_path) + s.gust_front_speed;
+  const double V = gust_closing_speed(s);
   for (std::size_t i = 0; i < s.gusts.size(); ++i) {
     if (!d.empty()) d += "; ";
     d += shape_words(s.gusts[i]) + ", reaching the CG at " + svg::number(s.gusts[i].start / V, 2) + " s";
@@ -179,7 +180,7 @@ DiscreteGust timed_gust(const Scenario& s, GustShape shape, GustComponent comp, 
   g.component = comp;
   g.length = H;
   g.amplitude = U;
-  g.start = (s.condition.airspeed * std::cos(s.condition.flight_path) + s.gust_front_speed) * t0;
+  g.start = gust_closing_speed(s) * t0;
   return g;
 }
 
@@ -430,8 +431,7 @@ ReportData make_report(const ReportOptions& o) {
     // long runs (minutes of turbulence) are cut to two minutes, or a minute after the last
     // gust or event begins, whichever is longer: the band is about the response, not the record
     {
-      const double V = gc.scenario.condition.airspeed * std::cos(gc.scenario.condition.flight_path) +
-                       gc.scenario.gust_front_speed;
+      const double V = gust_closing_speed(gc.scenario);
       double last = 0.0;
       for (const auto& g : gc.scenario.gusts) last = std::max(last, g.start / V);
       for (const auto& e : gc.scenario.events) last = std::max(last, e.time);

@@ -19,6 +19,7 @@
 #include "output/response_text.hpp"
 #include "output/sweep_text.hpp"
 #include "report/report.hpp"
+#include "scenario/gust_timing.hpp"
 #include "analysis/response.hpp"
 #include "util/sha256.hpp"
 #include "report/svg.hpp"
@@ -1344,13 +1345,7 @@ void page_gusts(Page& pg, PageCtx& c) {
            "elevator (trailing edge down positive) and stick force (pull positive): held, the force the pilot applies; "
            "hands off, the force it would take to hold the elevator where it floated.</figcaption></figure>\n";
       // a close view of the gust's passage
-      double t_gust = 0;
-      {
-        const double V = g.scenario.condition.airspeed * std::cos(g.scenario.condition.flight_path) + g.scenario.gust_front_speed;
-        for (const auto& gg : g.scenario.gusts)
-          t_gust = std::max(t_gust, (gg.start + (gg.shape == GustShape::one_minus_cosine ? 2 * gg.length : gg.length)) / V);
-        for (const auto& e : g.scenario.events) t_gust = std::max(t_gust, e.time + e.duration);
-      }
+      const double t_gust = disturbances_over_time(g.scenario);
       const double tz = std::min(tmax, std::max(4.0, std::ceil(t_gust + 4.0)));
       if (t_gust > 0 && tz < 0.6 * tmax) {
         std::string z = "<div class=\"grid2\">";

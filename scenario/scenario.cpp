@@ -1089,7 +1089,7 @@ void validate_timeline(const Scenario& s, const Where& where) {
 void validate_gusts(const Scenario& s, const Where& where) {
   // The gusts: each must begin within the run.
   const auto gu_keys = keys::gust_keys();
-  const double closing = s.condition.airspeed * std::cos(s.condition.flight_path) + s.gust_front_speed;
+  const double closing = gust_closing_speed(s);
   const double reach = closing * s.run.duration;
   for (std::size_t i = 0; i < s.gusts.size(); ++i) {
     const DiscreteGust& g = s.gusts[i];

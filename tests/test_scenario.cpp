@@ -605,6 +605,8 @@ namespace {
   X(condition.altitude, 1234.5) X(condition.airspeed, 51.3) X(condition.flight_path, 0.02)                    \
   X(trim.tab, 0.05) X(run.duration, 25.0) X(run.output_step, 0.02) X(run.rel_tol, 1e-7) X(run.abs_tol, 1e-10) \
   X(run.alpha_limit, 0.55) X(run.q_limit, 1.7) X(run.min_airspeed_ratio, 0.35) X(run.let_go_time, 1.5)       \
+  X(run.max_airspeed_ratio, 2.5) X(run.floor_altitude, -50.0) X(run.theta_limit, 1.2)                      \
+  X(run.load_factor_max, 6.0) X(run.load_factor_min, -2.5)                                                    \
   X(envelope.cg_forward, 0.16) X(envelope.cg_aft, 0.36) X(envelope.min_speed, 30.0)                          \
   X(envelope.max_speed, 80.0) X(gust_front_speed, 2.5)
 

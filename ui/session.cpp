@@ -113,7 +113,7 @@ void Session::recompute_locus() {
 }
 
 void Session::reset() {
-  fp::RunSettings rs = scenario_.run;
+  fp::RunSettings rs = fp::run_settings(scenario_);
   rs.duration = kLiveHorizon;
   held_ = std::make_unique<fp::Simulation>(plant_, gust_, trim_, rs, fp::RunCase{fp::Stick::held, 0.0},
                                            scenario_.events);
