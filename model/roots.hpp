@@ -12,6 +12,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdint>
+#include <stdexcept>
 #include <string>
 #include <utility>
 
@@ -21,8 +22,15 @@
 
 namespace fp {
 
-// A one-dimensional solve that did not converge.
-struct SolverFailure {
+// A one-dimensional solve that did not converge: a numerical failure, never a property of the
+// airplane. A std::runtime_error so that every generic handler (a sweep's worker, the window)
+// reports it with its own words instead of losing it.
+struct SolverFailure : std::runtime_error {
+  SolverFailure(std::string q, std::string m)
+      : std::runtime_error("numerical failure of a one-dimensional solver (not a property of the airplane): " + q +
+                           ": " + m),
+        quantity(std::move(q)),
+        message(std::move(m)) {}
   std::string quantity;  // what was sought, e.g. "CG of zero stick-free margin"
   std::string message;   // why it stopped
 };
