@@ -1,5 +1,6 @@
 // cmd_keys.cpp — `floatpitch keys` (see commands.hpp).
 #include "cli/common.hpp"
+#include "scenario/key_info.hpp"
 
 #include <cmath>
 #include <fstream>

@@ -190,18 +190,29 @@ int lag_states(const Plant& p) {
   return 0;
 }
 
-void derivatives(const Plant& p, const GustField& gust, const State& x, const Controls& ctl,
-                 double t, State& dxdt, Eval* out) {
-  const Airplane& ap = p.ap;
-  const double u = x[sx::u], w = x[sx::w], q = x[sx::q], th = x[sx::theta];
-  const double de = x[sx::de];
-  const double ded = ctl.stick == Stick::held && ap.circuit.held_stiffness == 0.0 ? 0.0 : x[sx::de_dot];
-  const double cth = std::cos(th), sth = std::sin(th);
-  const V2 gvec{-g * sth, g * cth};
+namespace {
 
-  Eval e;
+// What the stages of the derivative pass on.
+struct Stage {
+  double u, w, q, de, ded, cth, sth;  // state and its trigonometry
+  V2 gvec{0, 0};                      // gravity in body axes [m/s^2]
+  V2 rW{0, 0}, rT{0, 0};              // wing-body and tail a.c. from O [m]
+  double rho = 0;                     // [kg/m^3]
+  double Vsafe = 0;                   // airspeed at the wing, never 0 [m/s]
+  double alpha_tl = 0;                // tail flow angle before incidence and downwash [rad]
+  double eps_target = 0;              // steady downwash for the wing's alpha [rad]
+  int nlag = 0;                       // downwash-lag stages in use
+};
+
+// Stage 1: air data at the wing-body and the tail (each at its own point of the gust field),
+// their coefficients and the aerodynamic hinge moment.
+void air_data(const Plant& p, const GustField& gust, const State& x, const Controls& ctl, double t, Stage& st,
+              Eval& e) {
+  const Airplane& ap = p.ap;
+  const double u = st.u, w = st.w, q = st.q, de = st.de, ded = st.ded, cth = st.cth, sth = st.sth;
   e.atm = isa_at(geopotential_altitude(std::max(x[sx::h], -1000.0)));
   const double rho = e.atm.density;
+  st.rho = rho;
 
   // Air-relative velocity at a body point r: v_O + q x r - gust(at the point's earth X).
   auto local_air = [&](V2 r, GustSample& gs) {
@@ -215,23 +226,29 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
 
   // wing-body
   const V2 rW{p.rW_x, p.rW_z};
+  st.rW = rW;
   const V2 vW = local_air(rW, e.gust_wing);
   e.V = std::hypot(vW.x, vW.z);
   e.alpha = std::atan2(vW.z, vW.x);
   e.qbar = 0.5 * rho * e.V * e.V;
-  const double S = ap.wing.area, c = ap.wing.mac;
+  const double c = ap.wing.mac;
   const double Vsafe = std::max(e.V, 1e-3);
+  st.Vsafe = Vsafe;
   e.CL_wb = lift_coefficient(ap.wing.lift, e.alpha, false);
   e.CD = ap.wing.cd0 + ap.wing.k_induced * e.CL_wb * e.CL_wb;
   e.Cm_wb = ap.wing.cm_ac + ap.wing.cm_alpha_fus * e.alpha + ap.wing.cm_q * q * c / (2.0 * Vsafe);
 
   // tail
   const V2 rT{p.rT_x, p.rT_z};
+  st.rT = rT;
   const V2 vT = local_air(rT, e.gust_tail);
   e.V_t = std::hypot(vT.x, vT.z);
   const double alpha_tl = std::atan2(vT.z, vT.x);
+  st.alpha_tl = alpha_tl;
   const double eps_target = steady_downwash(ap.tail, e.alpha);
   const int nlag = lag_states(p);
+  st.nlag = nlag;
+  st.eps_target = eps_target;
   e.eps = nlag == 0 ? eps_target : x[sx::eps0 + static_cast<std::size_t>(nlag) - 1];
   e.alpha_t = alpha_tl + ap.tail.incidence - e.eps;
   e.qbar_t = ap.tail.eta * 0.5 * rho * e.V_t * e.V_t;
@@ -246,7 +263,14 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
          el.ch_rate * ded * el.chord / (2.0 * Vt_safe);
   e.H_aero = p.aerodynamics ? e.Ch * e.qbar_t * el.area * el.chord : 0.0;
 
-  // forces and moments about O
+}
+
+// Stage 2: aerodynamic forces and moments about O, and the thrust.
+void forces_and_moments(const Plant& p, const Controls& ctl, const Stage& st, Eval& e) {
+  const Airplane& ap = p.ap;
+  const double S = ap.wing.area, c = ap.wing.mac;
+  const double rho = st.rho, alpha_tl = st.alpha_tl;
+  const V2 rW = st.rW, rT = st.rT;
   e.X = e.Z = e.M = 0.0;
   if (p.aerodynamics) {
     const double Lw = e.qbar * S * e.CL_wb, Dw = e.qbar * S * e.CD;
@@ -272,6 +296,18 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
     e.M += cross(V2{0.0, pr.z_thrust}, Ft);
   }
 
+}
+
+// Stage 3: the accelerations of the two bodies (and, held rigidly, the pilot's hinge moment).
+struct Accel {
+  double aOx = 0, aOz = 0, al = 0, be = 0;  // [m/s^2], [rad/s^2]
+  double H_pilot = 0, Hc = 0, bob = 0, G = 0;
+  bool rigid_hold = false;
+};
+Accel accelerations(const Plant& p, const Controls& ctl, const Stage& st, Eval& e) {
+  const Airplane& ap = p.ap;
+  const double q = st.q, de = st.de, ded = st.ded;
+  const V2 gvec = st.gvec;
   // circuit, referred to the hinge (see state.hpp: a stick force F adds -F/G)
   const auto& ci = ap.circuit;
   const double G = ci.gearing;
@@ -330,6 +366,34 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
     al = s(2);
     be = s(3);
   }
+  return Accel{aOx, aOz, al, be, H_pilot, Hc, bob, G, rigid_hold};
+}
+
+}  // namespace
+
+void derivatives(const Plant& p, const GustField& gust, const State& x, const Controls& ctl,
+                 double t, State& dxdt, Eval* out) {
+  const Airplane& ap = p.ap;
+  Stage st;
+  st.u = x[sx::u];
+  st.w = x[sx::w];
+  st.q = x[sx::q];
+  st.de = x[sx::de];
+  st.ded = ctl.stick == Stick::held && ap.circuit.held_stiffness == 0.0 ? 0.0 : x[sx::de_dot];
+  st.cth = std::cos(x[sx::theta]);
+  st.sth = std::sin(x[sx::theta]);
+  st.gvec = V2{-g * st.sth, g * st.cth};
+  Eval e;
+  air_data(p, gust, x, ctl, t, st, e);
+  forces_and_moments(p, ctl, st, e);
+  const Accel acc = accelerations(p, ctl, st, e);
+  const double u = st.u, w = st.w, q = st.q, ded = st.ded, cth = st.cth, sth = st.sth;
+  const double aOx = acc.aOx, aOz = acc.aOz, al = acc.al, be = acc.be, G = acc.G, H_pilot = acc.H_pilot;
+  const double Hc = acc.Hc, bob = acc.bob;
+  const bool rigid_hold = acc.rigid_hold;
+  const V2 gvec = st.gvec;
+  const int nlag = st.nlag;
+  const double Vsafe = st.Vsafe, eps_target = st.eps_target;
   e.stick_force = -G * H_pilot;
   e.load_factor = -e.Z / (p.m * g);
   e.H_circuit = Hc + bob * (-(aOz - gvec.z) / g);

@@ -259,60 +259,10 @@ GustCase parse_gust_choice(const Scenario& base, const std::string& text0, int i
   return c;
 }
 
-ReportData make_report(const ReportOptions& o) {
-  ReportData d;
-  d.options = o;
-  d.version = FLOATPITCH_VERSION;
-  d.date = today_utc();
-  const Scenario s = load_scenario(o.scenario, o.set);
-  d.scenario = s;
-  if (!s.airplane.circuit.reversible)
-    throw ScenarioError{s.path, 0, 0, "circuit.reversible",
-                        "the report compares the stick held and free, and this circuit is irreversible (powered): "
-                        "the elevator cannot float: held case only. Use `floatpitch modes` and "
-                        "`floatpitch run --controls held` for the held airplane"};
-  if (!(o.hinge_band >= 0.0 && o.hinge_band < 1.0)) throw option_error("--hinge-band", "expects 0 <= band < 100 (%)");
-  if (o.samples < 2 || o.samples > 5000) throw option_error("--samples", "expects 2..5000 samples");
+namespace {
 
-  // the one command that regenerates the report
-  {
-    std::string c = "floatpitch report " + shell_quote(o.scenario) + " --out " + shell_quote(o.out);
-    for (const auto& x : o.set) c += " --set " + shell_quote(x);
-    if (!o.cg_range.empty()) c += " --cg-range " + shell_quote(o.cg_range);
-    for (const auto& g : o.gusts) c += " --gusts " + shell_quote(g);
-    if (o.hinge_band != 0.25) c += " --hinge-band " + fmt_g(100.0 * o.hinge_band);
-    for (const auto& x : o.sample) c += " --sample " + shell_quote(x);
-    if (o.samples != 40) c += " --samples " + std::to_string(o.samples);
-    if (o.seed != 1) c += " --seed " + std::to_string(o.seed);
-    if (o.min_margin != kDefaultCriteria.min_static_margin) c += " --min-margin " + fmt_g(o.min_margin);
-    if (o.min_force_per_g != kDefaultCriteria.min_force_per_g) c += " --min-force-per-g " + fmt_g(o.min_force_per_g);
-    if (o.pdf) c += " --pdf";
-    d.command = c;
-  }
-  d.files = input_files(s.path);
-  d.scenario_toml = to_toml(s);
-
-  // 2. trim
-  const auto plant = scenario_plant(s);
-  d.trim_held = trim_held(*plant, s.condition, s.trim.tab_auto ? 0.0 : s.trim.tab);
-  d.trim_free = trim_free(*plant, s.condition);
-  d.trim_start = scenario_trim(*plant, s);
-  {
-    const auto st = wing_stall(s.airplane.wing.lift);
-    d.cl_max = st.CLmax;
-    d.stall_speed = stall_speed(s.airplane, s.condition.altitude);
-  }
-
-  // 3. static
-  MarginsOptions mo;
-  mo.criteria = {o.min_margin, o.min_force_per_g};
-  d.margins = compute_margins(s, mo);
-  d.force_per_g = force_per_g_curve(*plant, s.condition, d.margins.trim_tab, 3.5, 0.25);
-
-  // 4. dynamic
-  d.modes = compute_modes(s);
-
-  // 5. CG sweep
+// Section 5: the CG sweep with the boundary, over the scenario's range or --cg-range.
+void report_cg_sweep(ReportData& d, const Scenario& s, const ReportOptions& o) {
   {
     double from, to;
     if (o.cg_range.empty()) {
@@ -348,7 +298,11 @@ ReportData make_report(const ReportOptions& o) {
     d.cg_sweep = run_sweep(sp, o.jobs, false);
   }
 
-  // 6. gusts
+}
+
+// Section 6: the gust cases (the scenario's own disturbance, the --gusts choices, or a default
+// gust) run held and free.
+void report_gusts(ReportData& d, const Scenario& s, const ReportOptions& o) {
   if (o.gusts.empty()) {
     if (!s.gusts.empty() || !s.events.empty() || s.turbulence.model != TurbulenceKind::none) {
       d.gusts.push_back(parse_gust_choice(s, "scenario", 0));
@@ -377,7 +331,10 @@ ReportData make_report(const ReportOptions& o) {
     g.summary["gust_case"] = {{"id", g.id}, {"title", g.title}, {"choice", g.spec}};
   }
 
-  // 7. uncertainty
+}
+
+// Section 7: the hinge-moment uncertainty band, its samples and their hands-off runs.
+void report_uncertainty(ReportData& d, const Scenario& s, const ReportOptions& o) {
   {
     UncertaintyResult& u = d.uncertainty;
     std::vector<SampleSpec> specs;
@@ -496,6 +453,66 @@ ReportData make_report(const ReportOptions& o) {
       for (std::size_t k = 0; k < tr.size(); k += stride) u.alpha[i].push_back(tr.ch[ch_alpha][k]);
     }
   }
+}
+
+}  // namespace
+
+ReportData make_report(const ReportOptions& o) {
+  ReportData d;
+  d.options = o;
+  d.version = FLOATPITCH_VERSION;
+  d.date = today_utc();
+  const Scenario s = load_scenario(o.scenario, o.set);
+  d.scenario = s;
+  if (!s.airplane.circuit.reversible)
+    throw ScenarioError{s.path, 0, 0, "circuit.reversible",
+                        "the report compares the stick held and free, and this circuit is irreversible (powered): "
+                        "the elevator cannot float: held case only. Use `floatpitch modes` and "
+                        "`floatpitch run --controls held` for the held airplane"};
+  if (!(o.hinge_band >= 0.0 && o.hinge_band < 1.0)) throw option_error("--hinge-band", "expects 0 <= band < 100 (%)");
+  if (o.samples < 2 || o.samples > 5000) throw option_error("--samples", "expects 2..5000 samples");
+
+  // the one command that regenerates the report
+  {
+    std::string c = "floatpitch report " + shell_quote(o.scenario) + " --out " + shell_quote(o.out);
+    for (const auto& x : o.set) c += " --set " + shell_quote(x);
+    if (!o.cg_range.empty()) c += " --cg-range " + shell_quote(o.cg_range);
+    for (const auto& g : o.gusts) c += " --gusts " + shell_quote(g);
+    if (o.hinge_band != 0.25) c += " --hinge-band " + fmt_g(100.0 * o.hinge_band);
+    for (const auto& x : o.sample) c += " --sample " + shell_quote(x);
+    if (o.samples != 40) c += " --samples " + std::to_string(o.samples);
+    if (o.seed != 1) c += " --seed " + std::to_string(o.seed);
+    if (o.min_margin != kDefaultCriteria.min_static_margin) c += " --min-margin " + fmt_g(o.min_margin);
+    if (o.min_force_per_g != kDefaultCriteria.min_force_per_g) c += " --min-force-per-g " + fmt_g(o.min_force_per_g);
+    if (o.pdf) c += " --pdf";
+    d.command = c;
+  }
+  d.files = input_files(s.path);
+  d.scenario_toml = to_toml(s);
+
+  // 2. trim
+  const auto plant = scenario_plant(s);
+  d.trim_held = trim_held(*plant, s.condition, s.trim.tab_auto ? 0.0 : s.trim.tab);
+  d.trim_free = trim_free(*plant, s.condition);
+  d.trim_start = scenario_trim(*plant, s);
+  {
+    const auto st = wing_stall(s.airplane.wing.lift);
+    d.cl_max = st.CLmax;
+    d.stall_speed = stall_speed(s.airplane, s.condition.altitude);
+  }
+
+  // 3. static
+  MarginsOptions mo;
+  mo.criteria = {o.min_margin, o.min_force_per_g};
+  d.margins = compute_margins(s, mo);
+  d.force_per_g = force_per_g_curve(*plant, s.condition, d.margins.trim_tab, 3.5, 0.25);
+
+  // 4. dynamic
+  d.modes = compute_modes(s);
+
+  report_cg_sweep(d, s, o);
+  report_gusts(d, s, o);
+  report_uncertainty(d, s, o);
 
   return d;
 }

@@ -206,12 +206,10 @@ std::string kt(double mps, int dec = 0) { return number(units::to_kt(mps), dec) 
 // ---------------------------------------------------------------------------------------------
 // Findings
 
-std::vector<Finding> report_findings(const ReportData& d) {
-  std::vector<Finding> out;
-  const Facts f = facts_of(d);
-  const Margins& m = d.margins;
-  const double cg = f.cg;
-
+// Findings 1-3: static stability, the stick-force slope, the free-return band.
+void findings_static(std::vector<Finding>& out, const ReportData& d, const Facts& f) {
+  [[maybe_unused]] const Margins& m = d.margins;
+  [[maybe_unused]] const double cg = f.cg;
   // 1. static stability, stick fixed and free, at the analysed CG
   {
     Finding x;
@@ -275,6 +273,12 @@ std::vector<Finding> report_findings(const ReportData& d) {
     x.source_note = "from memory; check the current text";
     out.push_back(x);
   }
+}
+
+// Findings 4-6: the divergence, short-period damping, stick force per g.
+void findings_dynamic(std::vector<Finding>& out, const ReportData& d, const Facts& f) {
+  [[maybe_unused]] const Margins& m = d.margins;
+  [[maybe_unused]] const double cg = f.cg;
   // 4. dynamic stability held and free: the divergence
   if (f.held_worst && f.free_worst) {
     Finding x;
@@ -337,6 +341,12 @@ std::vector<Finding> report_findings(const ReportData& d) {
     x.comparison = m.force_per_g >= d.options.min_force_per_g ? "Above the minimum set." : "Below the minimum set.";
     out.push_back(x);
   }
+}
+
+// Findings 7-9: the CG envelope against the limits, the divergence boundary, the uncertainty.
+void findings_limits(std::vector<Finding>& out, const ReportData& d, const Facts& f) {
+  [[maybe_unused]] const Margins& m = d.margins;
+  [[maybe_unused]] const double cg = f.cg;
   // 7. CG envelope against the limits computed here
   {
     Finding x;
@@ -402,6 +412,14 @@ std::vector<Finding> report_findings(const ReportData& d) {
       out.push_back(x);
     }
   }
+}
+
+std::vector<Finding> report_findings(const ReportData& d) {
+  std::vector<Finding> out;
+  const Facts f = facts_of(d);
+  findings_static(out, d, f);
+  findings_dynamic(out, d, f);
+  findings_limits(out, d, f);
   return out;
 }
 

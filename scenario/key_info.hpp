@@ -21,6 +21,10 @@ struct KeyInfo {
   bool integer = false;      // a whole number
 };
 
+// The key reference (markdown table: key, unit, meaning, allowed range) for the README and
+// `floatpitch keys`.
+std::string key_reference_markdown();
+
 // The numeric keys of the tables ([wing], [tail], ..., [run]) in the order of the files.
 const std::vector<KeyInfo>& numeric_key_info();
 

@@ -6,6 +6,8 @@
 // stated in the table and so in the docs.
 #include "scenario/keys.hpp"
 
+#include "scenario/key_info.hpp"
+
 #include <algorithm>
 #include <charconv>
 #include <cmath>

@@ -14,7 +14,7 @@
 #include <vector>
 
 #include "model/units.hpp"
-#include "scenario/scenario.hpp"
+#include "scenario/scenario_types.hpp"
 
 namespace fp::keys {
 

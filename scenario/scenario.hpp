@@ -9,159 +9,12 @@
 // strings with an explicit unit: "110 kt", "6500 ft", "3 deg".
 #pragma once
 
-#include <map>
-#include <optional>
 #include <string>
 #include <vector>
 
-#include "model/airplane.hpp"
-#include "model/gust.hpp"
+#include "scenario/scenario_types.hpp"
 
 namespace fp {
-
-// A user error in a scenario or command-line value: where, which key, and what is allowed.
-// The command line prints what() and exits with status 2.
-struct ScenarioError {
-  std::string file;     // path as given ("" for --set values)
-  int line = 0;         // 1-based, 0 when unknown
-  int column = 0;       // 1-based, 0 when unknown
-  std::string key;      // dotted key, "" when the error is not about one key
-  std::string message;  // what is wrong and what is allowed
-  std::string what() const;  // "file:line:column: key: message"
-};
-
-enum class EventKind {
-  let_go,       // free case: the pilot lets go of the stick (force zero)
-  take_hold,    // free case: the pilot takes hold and holds the stick where it is
-  tab,          // both cases: the trim tab moves to `value` [rad]
-  pulse,        // free case: pilot force `value` [N, pull +] for `duration` [s]
-  elevator,     // held case: the held stick moves the elevator by `value` [rad] for `duration` [s]
-                // (duration 0: a step that stays)
-};
-
-struct Event {
-  double time = 0;       // [s]
-  EventKind kind = EventKind::let_go;
-  double value = 0;      // see EventKind
-  double duration = 0;   // [s]
-  int line = 0;          // where it was written (for error messages)
-};
-
-enum class ControlsChoice { held, free, both };
-
-struct RunSettings {
-  double duration = 30.0;        // [s] (0.1..3600)
-  double output_step = 0.01;     // output grid step [s] (1e-4..10)
-  double rel_tol = 1e-8;         // integrator relative tolerance [-] (1e-12..1e-3)
-  double abs_tol = 1e-9;         // integrator absolute tolerance (1e-14..1e-3)
-  double alpha_limit = 0.35;     // |alpha| beyond which the airplane has departed [rad] (0.1..1.5)
-  double q_limit = 2.0;          // |q| beyond which the airplane has departed [rad/s] (0.1..10)
-  double min_airspeed_ratio = 0.5; // airspeed below this fraction of trim = departed [-] (0.05..0.95)
-  // Further departure bounds (run/run.hpp "Departure criteria"; DEVELOPERS.md "Run verdicts").
-  // Airspeeds are the air-relative true airspeed the CSV prints.
-  double max_airspeed_ratio = 2.0; // above this multiple of trim = departed (overspeed), when the
-                                   // aircraft file states no envelope.max_speed [-] (1.05..20)
-  double floor_altitude = 0.0;   // altitude below which the airplane has departed (the ground of the
-                                 // flat-Earth model at 0) [m] (-1000..30000)
-  double theta_limit = 1.0471975511965976;  // |pitch attitude| beyond which departed [rad] (5..180 deg)
-  double load_factor_max = 5.7;  // load factor above which departed [-] (1.1..20)
-  double load_factor_min = -2.28; // load factor below which departed [-] (-20..0.9)
-  double dive_speed = 0.0;       // not a key: envelope.max_speed, copied in by run_settings()
-                                 // (run/run.hpp); 0 = use max_airspeed_ratio [m/s]
-  ControlsChoice controls = ControlsChoice::both;
-  double let_go_time = 0.0;      // free case: time the pilot lets go [s] (0..duration)
-};
-
-struct TrimSettings {
-  bool tab_auto = true;          // tab set for zero stick force at the trim condition
-  double tab = 0.0;              // tab setting when not automatic [rad]
-};
-
-// The stated CG envelope of the airplane (fractions of MAC), for the margins and the report.
-struct Envelope {
-  double cg_forward = 0.15;      // [-] (-0.5..1.5)
-  double cg_aft = 0.35;          // [-] (-0.5..1.5)
-  double min_speed = 0.0;        // slowest speed the envelope covers, e.g. 1.3 Vs [m/s] (0 = auto)
-  double max_speed = 0.0;        // V_NE or V_D [m/s] (0 = auto)
-};
-
-// Continuous turbulence ([turbulence]; see model/turbulence.hpp and docs/gusts.md).
-enum class TurbulenceKind { none, dryden, von_karman };
-enum class TurbulenceSeverity { light, moderate, severe };
-enum class TurbulenceComponents { both, vertical, horizontal };
-
-struct TurbulenceSettings {
-  TurbulenceKind model = TurbulenceKind::none;
-  TurbulenceSeverity severity = TurbulenceSeverity::moderate;
-  double probability = 0.0;      // probability of exceedance instead of severity [-] (0 = use severity; 1e-5..1e-2)
-  TurbulenceComponents components = TurbulenceComponents::both;
-  double sigma_u = 0.0;          // longitudinal intensity [m/s] (0 = from height and severity)
-  double sigma_w = 0.0;          // vertical intensity [m/s] (0 = from height and severity)
-  double scale_u = 0.0;          // longitudinal scale length [m] (0 = from height)
-  double scale_w = 0.0;          // vertical scale length [m] (0 = from height)
-  double height = 0.0;           // height above ground for the tables [m] (0 = condition.altitude)
-  int seed = 1;                  // random seed [-] (0..2147483647)
-  int seeds = 1;                 // number of seeds a run uses (seed, seed+1, ...) [-] (1..10000)
-  double spacing = 0.0;          // sample spacing of the record [m] (0 = half the wing-tail distance, <= L/10)
-  double start_time = 0.0;       // time at which the CG enters the turbulence [s] (0..run.duration)
-  double fade_in = 2.0;          // time over which it rises to full strength [s] (0..600)
-};
-
-// How a [[gust]]'s amplitude is set: given, or by a published design rule (docs/gusts.md).
-enum class GustRule {
-  amplitude,          // gust.amplitude as written (true airspeed)
-  derived_vc,         // U_de = 50 ft/s EAS at V_C, 14 CFR 23.333(c) / 23.341(c) before amdt 64, CS 23.341
-  derived_vd,         // U_de = 25 ft/s EAS at V_D, the same rule
-  gradient_distance,  // U_ref F_g (H/350 ft)^(1/6) EAS, 14 CFR 25.341(a) (a transport-category convention)
-};
-
-// Per [[gust]] (same order as Scenario::gusts): the rule and the tuned-gust search.
-struct GustDesign {
-  GustRule rule = GustRule::amplitude;
-  double design_velocity = 0.0;  // the rule's reference velocity, EAS [m/s] (0 = the rule's own)
-  double alleviation = 1.0;      // gradient_distance: flight profile alleviation factor F_g [-] (0..1)
-  bool length_auto = false;      // derived rules without gust.length: H = 12.5 MAC
-  double tune_min = 0.0;         // tuned-gust search over H from tune_min to tune_max [m] (0 = none)
-  double tune_max = 0.0;
-  int tune_points = 12;          // grid points of the search before refinement [-] (3..200)
-};
-
-// Where a key's value came from, so that errors about relations between keys can point at
-// the file and line that set each of them.
-struct KeyOrigin {
-  std::string file;     // the file that set it ("" when it did not come from a file)
-  int line = 0;         // 1-based, 0 when unknown
-  int column = 0;       // 1-based, 0 when unknown
-  std::string via;      // "" for files; otherwise where it came from ("--set", "--vary", ...)
-};
-
-struct Scenario {
-  std::string path;              // the case file as given
-  std::string name;              // [scenario] name
-  std::string description;       // [scenario] description
-  std::string aircraft_name;     // from the aircraft file's name key
-  Airplane airplane;
-  Condition condition;
-  TrimSettings trim;
-  RunSettings run;
-  Envelope envelope;
-  std::vector<Event> events;     // sorted by time
-  std::vector<DiscreteGust> gusts;
-  double gust_front_speed = 0.0; // [m/s]
-  // Per gust (same order as `gusts`): the start_time [s] when the file gave the gust's start as
-  // a time; its `start` is then derived as (V cos(gamma) + gust_front_speed) * start_time, and
-  // re-derived when set_value changes the airspeed, the flight path or the front speed.
-  // nullopt (or missing entries) when the start was given as a distance.
-  std::vector<std::optional<double>> gust_start_times;
-  // Per gust (same order as `gusts`; missing entries: amplitude as given, no search). The
-  // amplitude of a rule gust is derived from the rule, the altitude and the gradient distance,
-  // and re-derived like the starts given as times.
-  std::vector<GustDesign> gust_designs;
-  TurbulenceSettings turbulence;
-  // Where each key was set: dotted keys ("wing.area"), "event[i]" and "gust[i]" (0-based)
-  // for the entries of the arrays. Filled by the loader and set_value; used in messages only.
-  std::map<std::string, KeyOrigin> origins;
-};
 
 // Load a case (or aircraft) file. `overrides` are "key=value" strings (--set), applied after the
 // files with the same validation. Throws ScenarioError.
@@ -206,7 +59,5 @@ std::vector<ScenarioWarning> plausibility_warnings(const Scenario& s);
 // Write the scenario (all keys, SI values with units) as TOML that load_scenario reads back.
 std::string to_toml(const Scenario& s);
 
-// The key reference (markdown table: key, unit, meaning, allowed range) for the README.
-std::string key_reference_markdown();
 
 }  // namespace fp

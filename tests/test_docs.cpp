@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "scenario/scenario.hpp"
+#include "scenario/key_info.hpp"
 
 TEST_CASE("README key reference is in step with the key table") {
   std::ifstream f(std::string(FP_SOURCE_DIR) + "/README.md");

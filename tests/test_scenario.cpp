@@ -16,6 +16,7 @@
 
 #include "model/units.hpp"
 #include "scenario/scenario.hpp"
+#include "scenario/key_info.hpp"
 
 using namespace fp;
 using doctest::Approx;

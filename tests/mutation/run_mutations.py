@@ -31,7 +31,7 @@ MUTATIONS = [
     ("model/dynamics.cpp", "ap.tail.tau_elevator * de", "-ap.tail.tau_elevator * de", "sign of elevator effectiveness"),
     ("model/dynamics.cpp", "ap.tail.tau_tab * e.tab", "-ap.tail.tau_tab * e.tab", "sign of tab effectiveness"),
     ("model/dynamics.cpp", "e.qbar_t = ap.tail.eta * 0.5", "e.qbar_t = 0.5", "tail dynamic-pressure ratio dropped"),
-    ("model/dynamics.cpp", "ap.tail.eps0 + ap.tail.deps_dalpha * e.alpha", "ap.tail.eps0 - ap.tail.deps_dalpha * e.alpha", "sign of the downwash gradient"),
+    ("model/dynamics.hpp", "return t.eps0 + t.deps_dalpha * alpha;", "return t.eps0 - t.deps_dalpha * alpha;", "sign of the downwash gradient"),
     ("model/dynamics.cpp", "e.eps = nlag == 0 ? eps_target :", "e.eps = nlag >= 0 ? eps_target :", "downwash lag dropped"),
     ("model/dynamics.cpp", "return V2{u + q * r.z - gx, w - q * r.x - gz};", "return V2{u + q * r.z - gx, w + q * r.x - gz};", "sign of the pitch-rate term at the surfaces (tail q l_t / V)"),
     # gusts at wing and tail
@@ -66,7 +66,7 @@ MUTATIONS = [
     ("model/turbulence.cpp", "f.den = {1.0, 1.357, 0.1987};", "f.den = {1.0, 1.357, 0.0};", "von Karman u filter denominator"),
     ("model/atmosphere.cpp", "const double L = -0.0065;", "const double L = -0.0060;", "ISA lapse rate"),
     # closed forms (model/static.cpp)
-    ("model/static.cpp", "r.free_factor = 1.0 - tau * el.ch_alpha / chd;", "r.free_factor = 1.0 + tau * el.ch_alpha / chd;", "sign in the free-elevator factor"),
+    ("model/static.cpp", "return 1.0 - tau * ap.elevator.ch_alpha / chd;", "return 1.0 + tau * ap.elevator.ch_alpha / chd;", "sign in the free-elevator factor"),
     ("model/static.cpp", "r.mp_fixed = r.np_fixed - r.cm_q / (2.0 * r.mu);", "r.mp_fixed = r.np_fixed + r.cm_q / (2.0 * r.mu);", "sign of the maneuver-point shift (fixed)"),
     ("model/static.cpp", "r.mp_free = r.np_free - r.cm_q_free / (2.0 * r.mu);", "r.mp_free = r.np_free + r.cm_q_free / (2.0 * r.mu);", "sign of the maneuver-point shift (free)"),
     ("model/static.cpp", "r.np_apparent = r.np_free + r.hinge_constant / K;", "r.np_apparent = r.np_free - r.hinge_constant / K;", "sign of the apparent neutral-point shift"),
