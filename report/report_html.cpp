@@ -1296,22 +1296,27 @@ void page_cg_sweep(Page& pg, PageCtx& c) {
                 "Short-period damping ratio against CG (gaps: no oscillatory short-period mode at that CG).");
     if (r.has_boundary) {
       Table t;
-      t.head = {"CG where the airplane starts to diverge [% MAC]", "closed form", "eigenvalue", "time response", "spread"};
-      t.numeric = {false, true, true, true, true};
-      auto spread = [](const Boundary& b) {
-        const double lo = std::min({b.closed_form, b.eigenvalue, b.time_domain});
-        const double hi = std::max({b.closed_form, b.eigenvalue, b.time_domain});
-        return number(100 * (hi - lo), 2);
+      t.head = {"CG where the airplane starts to diverge [% MAC]", "closed form", "static crossing",
+                "first crossing", "time response", "closed form - static", "first - time"};
+      t.numeric = {false, true, true, true, true, true, true};
+      auto row = [](const char* name, const Boundary& b, const std::string& cf) {
+        const BoundarySpreads sp = boundary_spreads(b);
+        const std::string first = pct(b.eigenvalue, 2) +
+            (b.crossing_oscillatory ? "<br><span class=\"muted\">oscillatory, period " + number(b.crossing_period, 0) + " s</span>"
+                                    : std::string());
+        return std::vector<std::string>{name, cf, pct(b.static_crossing, 2), first, pct(b.time_domain, 2),
+                                        number(100 * sp.closed_vs_static, 2), number(100 * sp.first_vs_time, 2)};
       };
-      t.rows.push_back({"stick held", pct(r.held.closed_form, 2), pct(r.held.eigenvalue, 2), pct(r.held.time_domain, 2), spread(r.held)});
-      t.rows.push_back({"stick free", pct(r.free.closed_form, 2) + "<br><span class=\"muted\">aerodynamic only " +
-                                          pct(r.free.closed_form_aerodynamic, 2) + "</span>",
-                        pct(r.free.eigenvalue, 2), pct(r.free.time_domain, 2), spread(r.free)});
+      t.rows.push_back(row("stick held", r.held, pct(r.held.closed_form, 2)));
+      t.rows.push_back(row("stick free", r.free, pct(r.free.closed_form, 2) + "<br><span class=\"muted\">aerodynamic only " +
+                                                     pct(r.free.closed_form_aerodynamic, 2) + "</span>"));
       h += table_html(t);
       h += "<p class=\"note\">Closed form: the stick-fixed neutral point (held) and the apparent stick-free point with the "
            "constant hinge moments (free). Eigenvalue: the largest real root crossing zero, bisected between grid points. "
            "Time response: the growth rate of the slow motion read from time runs by the matrix-pencil method, crossing zero. "
-           "The closed form leaves out the speed and downwash-lag couplings that the other two include.</p>\n";
+           "The closed form leaves out the speed and downwash-lag couplings that the other two include. Static crossing: "
+           "where a real root passes through zero (det A, neutral roots set aside, changes sign). Compared: " +
+           std::string(kBoundaryComparisons) + ".</p>\n";
     }
   }
 }
