@@ -362,9 +362,12 @@ std::vector<Finding> report_findings(const ReportData& d) {
     const Boundary& b = d.cg_sweep.free;
     Finding x;
     x.topic = "Hands-off divergence boundary";
-    x.measured = "The hands-off airplane starts to diverge at CG " + pct(b.eigenvalue, 2) + " % MAC (eigenvalue), " +
-                 pct(b.time_domain, 2) + " % MAC (time response), " + pct(b.closed_form, 2) +
-                 " % MAC (closed form with the constant hinge moments; " + pct(b.closed_form_aerodynamic, 2) +
+    x.measured = "The hands-off airplane starts to diverge at CG " + pct(b.eigenvalue, 2) + " % MAC (eigenvalue" +
+                 (b.crossing_oscillatory ? ", an oscillatory divergence of period " + number(b.crossing_period, 0) + " s"
+                                         : std::string()) +
+                 "), " + pct(b.time_domain, 2) + " % MAC (time response). A real root crosses zero at " +
+                 pct(b.static_crossing, 2) + " % MAC, against " + pct(b.closed_form, 2) +
+                 " % MAC from the closed form with the constant hinge moments (" + pct(b.closed_form_aerodynamic, 2) +
                  " % MAC without). With the stick held: " + pct(d.cg_sweep.held.eigenvalue, 2) + " % MAC (eigenvalue).";
     x.criterion = "The stated aft CG limit, " + pct(m.envelope_aft) + " % MAC (the airplane's own data).";
     x.source = "the scenario's [envelope] (manufacturer's data)";
