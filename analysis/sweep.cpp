@@ -455,8 +455,10 @@ void eigen_side(const Scenario& base, const std::vector<double>& cg, const std::
   if (s.oscillatory)
     b.closed_form_note = "the first root to cross zero is a complex pair (" + s.mode + ", period " +
                          fixed(b.crossing_period, 1) + " s) at CG " + fixed(100 * c.cg, 2) +
-                         " % MAC: the airplane diverges there, oscillating; the static crossing is where a real root "
-                         "follows, not the divergence CG";
+                         " % MAC: the airplane diverges there, oscillating; " +
+                         (std::isfinite(sc.cg) ? std::string("the static crossing is where a real root follows, not the divergence CG")
+                                               : std::string("no real root crosses zero in the CG range swept, so the "
+                                                             "closed form is not compared"));
 }
 
 // The time-domain crossing of one side: growth rates on the grid near the eigenvalue bracket
