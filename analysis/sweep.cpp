@@ -5,6 +5,7 @@
 #include <atomic>
 #include <chrono>
 #include <cmath>
+#include <complex>
 #include <cstdio>
 #include <limits>
 #include <mutex>
@@ -76,6 +77,25 @@ StabilityRoot root_at(const Scenario& base, double cg, bool free) {
   c.stick = free ? Stick::free : Stick::held;
   c.pilot_force = 0.0;
   return deciding_root(modes(linearise(*plant, t.x, c)));
+}
+
+// The static indicator (static_indicator) at a CG (retrimmed), held or free, with the mode of
+// the largest counted real root (the one that crosses at a static crossing).
+double static_at(const Scenario& base, double cg, bool free, std::string* real_mode = nullptr) {
+  const Scenario s = at_cg(base, cg);
+  const auto plant = scenario_plant(s);
+  const Trim t = scenario_trim(*plant, s);
+  Controls c = t.controls;
+  c.stick = free ? Stick::free : Stick::held;
+  c.pilot_force = 0.0;
+  const auto ms = modes(linearise(*plant, t.x, c));
+  if (real_mode) {
+    const Mode* best = nullptr;
+    for (const Mode& m : ms)
+      if (!m.neutral && !m.oscillatory && (!best || m.root.real() > best->root.real())) best = &m;
+    *real_mode = best ? best->name : std::string();
+  }
+  return static_indicator(ms);
 }
 
 // One-line summary of the roots set aside, "" when none.
@@ -295,11 +315,12 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
     const StabilityRoot dh = deciding_root(mh);
     r.max_real_held = dh.found ? dh.root.real() : nan_;
     r.mode_held = dh.mode;
+    r.static_held = static_indicator(mh);
     r.set_aside_held = set_aside_text(dh);
     const Mode* sp = find_mode(mh, "short period");
     r.sp_damping_held = sp ? sp->damping : nan_;
     r.sp_frequency_held = sp ? sp->frequency : nan_;
-    r.max_real_free = r.sp_damping_free = r.sp_frequency_free = nan_;
+    r.max_real_free = r.static_free = r.sp_damping_free = r.sp_frequency_free = nan_;
     if (rev) {
       c.stick = Stick::free;
       c.pilot_force = 0;
@@ -307,6 +328,7 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
       const StabilityRoot df = deciding_root(mf);
       r.max_real_free = df.found ? df.root.real() : nan_;
       r.mode_free = df.mode;
+      r.static_free = static_indicator(mf);
       r.set_aside_free = set_aside_text(df);
       const Mode* spf = find_mode(mf, "short period");
       r.sp_damping_free = spf ? spf->damping : nan_;
@@ -375,26 +397,38 @@ std::string time_domain_check(const Scenario& base, bool free, double cg, double
   return "NOT robust: moves by more than 0.25 % MAC with " + moved;
 }
 
-// The eigenvalue crossing of one side, and what decides there.
-void eigen_side(const Scenario& base, const std::vector<double>& cg, const std::vector<double>& ev, bool free,
-                Boundary& b, std::string& err) {
+// The eigenvalue crossing of one side (the first crossing of the deciding root), what decides
+// there, and the static crossing (a real root through zero: the static indicator changes sign).
+void eigen_side(const Scenario& base, const std::vector<double>& cg, const std::vector<double>& ev,
+                const std::vector<double>& st, bool free, Boundary& b, std::string& err) {
   const Crossing c = crossing(cg, ev, [&](double x) {
     const StabilityRoot s = root_at(base, x, free);
     return s.found ? s.root.real() : nan_;
   }, true, 100);
   b.eigenvalue = c.cg;
   if (!c.error.empty()) err += "eigenvalue: " + c.error + ". ";
+  const Crossing sc = crossing(cg, st, [&](double x) { return static_at(base, x, free); }, true, 100);
+  b.static_crossing = sc.cg;
+  if (!sc.error.empty()) err += "static crossing: " + sc.error + ". ";
+  if (std::isfinite(sc.cg)) static_at(base, sc.cg + 1e-4, free, &b.static_mode);
+  b.closed_form_applies = std::isfinite(sc.cg);
+  if (!b.closed_form_applies)
+    b.closed_form_note = "no real root crosses zero in the CG range swept: nothing to compare the static "
+                         "(neutral-point) formula with";
   if (!std::isfinite(c.cg)) return;
   // the root that crosses, read just aft of the crossing
   const StabilityRoot s = root_at(base, c.cg + 1e-4, free);
   b.crossing_mode = s.mode;
   b.set_aside = set_aside_text(s);
-  if (s.oscillatory) {
-    b.closed_form_applies = false;
-    b.closed_form_note = "the root that crosses is a complex pair (" + s.mode + ", period " +
-                         fixed(2.0 * std::numbers::pi / s.root.imag(), 1) +
-                         " s): an oscillatory divergence, which the static (neutral-point) formula does not predict";
-  }
+  b.crossing_oscillatory = s.oscillatory;
+  b.crossing_period = s.oscillatory ? 2.0 * std::numbers::pi / s.root.imag() : nan_;
+  if (s.oscillatory)
+    b.closed_form_note = "the first root to cross zero is a complex pair (" + s.mode + ", period " +
+                         fixed(b.crossing_period, 1) + " s) at CG " + fixed(100 * c.cg, 2) +
+                         " % MAC: the airplane diverges there, oscillating; " +
+                         (std::isfinite(sc.cg) ? std::string("the static crossing is where a real root follows, not the divergence CG")
+                                               : std::string("no real root crosses zero in the CG range swept, so the "
+                                                             "closed form is not compared"));
 }
 
 // The time-domain crossing of one side: growth rates on the grid near the eigenvalue bracket
@@ -427,12 +461,14 @@ void compute_boundary(SweepResult& r, int jobs) {
   Scenario base = load_scenario(r.spec.scenario, r.spec.set);
   r.has_boundary = true;
   r.held = r.free = Boundary{};
-  std::vector<double> cg, eh, ef;
+  std::vector<double> cg, eh, ef, sh, sf;
   for (const auto& p : r.points) {
     if (!p.ok) continue;
     cg.push_back(p.inputs[0]);
     eh.push_back(p.max_real_held);
     ef.push_back(p.max_real_free);
+    sh.push_back(p.static_held);
+    sf.push_back(p.static_free);
   }
   const bool rev = base.airplane.circuit.reversible;
   // closed form: h_n held; free, the apparent point h_app (iterated: its elevator power uses
@@ -445,6 +481,7 @@ void compute_boundary(SweepResult& r, int jobs) {
   r.free.closed_form = rev ? happ : nan_;
   r.free.closed_form_aerodynamic = rev ? cf0.np_free : nan_;
   r.held.eigenvalue = r.held.time_domain = r.free.eigenvalue = r.free.time_domain = nan_;
+  r.held.static_crossing = r.free.static_crossing = r.held.crossing_period = r.free.crossing_period = nan_;
   // near the boundary the slow root is a few thousandths per second: two minutes of response
   // are needed to read it
   const double T = std::max(r.spec.run_seconds, r.spec.boundary_run_seconds);
@@ -459,7 +496,7 @@ void compute_boundary(SweepResult& r, int jobs) {
     Boundary& b = free ? r.free : r.held;
     std::string& err = errs[k];
     try {
-      if (k < 2) eigen_side(base, cg, free ? ef : eh, free, b, err);
+      if (k < 2) eigen_side(base, cg, free ? ef : eh, free ? sf : sh, free, b, err);
       else time_side(base, cg, free ? ef : eh, free, T, b, err);
     } catch (const std::exception& e) {
       err += std::string(k < 2 ? "eigenvalue: " : "time domain: ") + e.what() + ". ";
@@ -540,6 +577,18 @@ SweepResult run_sweep(const SweepSpec& spec, int jobs, bool progress) {
 namespace {
 
 }  // namespace
+
+double static_indicator(const std::vector<Mode>& ms) {
+  // modes() keeps one root of each pair (imag >= 0) and both of a pair whose imaginary parts lie
+  // within its 1e-12 /s of zero: those multiply as complex numbers, to |root|^2 together
+  std::complex<double> p = -1.0;
+  for (const Mode& m : ms) {
+    if (m.neutral) continue;
+    if (m.root.imag() >= 1e-12) p *= std::norm(m.root);
+    else p *= -m.root;
+  }
+  return p.real();
+}
 
 Band band_of(std::vector<double> v) {
   Band b{nan_, nan_, nan_, nan_, nan_, 0};

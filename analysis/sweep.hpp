@@ -17,8 +17,14 @@
 // eigenvalue (the deciding root of model/linear.hpp deciding_root crossing zero, bracketed on
 // the grid then refined by Boost.Math TOMS 748), time domain (growth rate of the airplane's own
 // motion read from two runs, by the matrix pencil, crossing zero, bracketed then bisected; see
-// time_domain_growth). When the root that crosses is a complex pair the closed form, a static
-// criterion, does not apply and is reported as such.
+// time_domain_growth). Besides that first crossing, the static crossing: the CG where a REAL
+// root passes through zero, i.e. where det A with the neutral roots set aside (the product of
+// the counted roots, the constant term of the characteristic polynomial) changes sign
+// (Routh-Hurwitz: a real root crosses zero exactly when that coefficient does; a complex pair
+// crosses when a Hurwitz determinant does). The closed form (a static criterion) is compared
+// with the static crossing; the first crossing (eigenvalue) with the time domain. When the first
+// crossing is a complex pair, the airplane diverges there (oscillatory, with its period), aft
+// of which the static crossing is only where a real root follows.
 #pragma once
 
 #include <cstdint>
@@ -30,6 +36,8 @@
 #include "scenario/scenario.hpp"
 
 namespace fp {
+
+struct Mode;  // model/linear.hpp
 
 struct VarySpec {
   std::string key;     // as given (alias allowed)
@@ -73,6 +81,9 @@ struct PointResult {
   double cg = 0;
   double force_gradient = 0;         // [N/(m/s)] model, tab fixed
   double max_real_held = 0, max_real_free = 0;       // real part of the deciding root [1/s]
+  // static indicator: -prod(-root) over the counted roots (pairs as |root|^2), i.e. -(-1)^n det A
+  // with the neutral roots set aside: < 0 while no real root is positive, > 0 with an odd number
+  double static_held = 0, static_free = 0;
   std::string mode_held, mode_free;                   // its mode
   std::string set_aside_held, set_aside_free;         // roots set aside and why ("" when none)
   double sp_damping_held = 0, sp_damping_free = 0;   // NaN when no short-period pair
@@ -88,9 +99,13 @@ struct PointResult {
 struct Boundary {
   double closed_form = 0, eigenvalue = 0, time_domain = 0;  // fractions of MAC (NaN: not found)
   double closed_form_aerodynamic = 0;                       // free: h'_n without the speed term
-  bool closed_form_applies = true;   // false when the crossing root is a complex pair
-  std::string closed_form_note;      // why not, when it does not apply
+  double static_crossing = 0;        // CG where a real root crosses zero (NaN: none in the range)
+  bool closed_form_applies = true;   // false when no static crossing was found to compare it with
+  std::string closed_form_note;      // why not, or a warning when the first crossing is oscillatory
   std::string crossing_mode;         // the deciding root's mode just aft of the eigenvalue crossing
+  bool crossing_oscillatory = false; // that root is a complex pair
+  double crossing_period = 0;        // its period [s] (NaN when real)
+  std::string static_mode;           // the real root's mode just aft of the static crossing
   std::string set_aside;             // roots set aside there, with the reason
   std::string time_domain_check;     // whether the time-domain boundary holds for tenfold settings
   std::string error;                 // why a method failed ("" when none did)
@@ -120,6 +135,10 @@ struct Band {
   long n = 0;                     // number of finite values
 };
 Band band_of(std::vector<double> v);
+
+// The static indicator of a set of modes (see PointResult::static_held): -prod(-root) over the
+// roots that are not neutral, a complex pair counted once as |root|^2.
+double static_indicator(const std::vector<Mode>& modes);
 
 // Evaluate one point (exposed for tests).
 PointResult evaluate_point(const Scenario& base, const std::vector<std::string>& keys,

@@ -25,6 +25,16 @@ double val(const json& j) { return j.is_number() ? j.get<double>() : nan_; }
 
 }  // namespace
 
+BoundarySpreads boundary_spreads(const Boundary& b) {
+  BoundarySpreads s{nan_, nan_, nan_};
+  s.closed_vs_static = b.closed_form_applies ? std::abs(b.closed_form - b.static_crossing) : nan_;
+  s.first_vs_time = std::abs(b.eigenvalue - b.time_domain);
+  if (std::isfinite(b.eigenvalue) && !b.crossing_oscillatory && b.closed_form_applies)
+    s.three_way = std::max({b.closed_form, b.static_crossing, b.time_domain}) -
+                  std::min({b.closed_form, b.static_crossing, b.time_domain});
+  return s;
+}
+
 namespace {
 
 json band_json(const Band& b) {
@@ -34,7 +44,7 @@ json band_json(const Band& b) {
 const char* kColumns[] = {"index", "ok", "reason", "cg", "trim_alpha_deg", "trim_elevator_deg", "trim_tab_deg",
                           "np_fixed_closed_form", "np_free_closed_form", "np_apparent_closed_form", "np_fixed_model",
                           "np_free_model", "static_margin_fixed", "static_margin_free", "stick_force_gradient_N_per_mps",
-                          "max_real_held_per_s", "max_real_free_per_s", "deciding_mode_held", "deciding_mode_free",
+                          "max_real_held_per_s", "max_real_free_per_s", "static_indicator_held", "static_indicator_free", "deciding_mode_held", "deciding_mode_free",
                           "roots_set_aside_held", "roots_set_aside_free", "sp_damping_held", "sp_damping_free",
                           "sp_frequency_held_rad_s", "sp_frequency_free_rad_s", "ran", "diverged_held", "diverged_free",
                           "divergence_time_held_s", "divergence_time_free_s", "peak_dn_held", "peak_dn_free",
@@ -68,6 +78,8 @@ json point_json(const PointResult& p, const std::vector<std::string>& keys) {
               {"stick_force_gradient_N_per_mps", num(p.force_gradient)},
               {"max_real_held_per_s", num(p.max_real_held)},
               {"max_real_free_per_s", num(p.max_real_free)},
+              {"static_indicator_held", num(p.static_held)},
+              {"static_indicator_free", num(p.static_free)},
               {"deciding_mode_held", text(p.mode_held)},
               {"deciding_mode_free", text(p.mode_free)},
               {"roots_set_aside_held", text(p.set_aside_held)},
@@ -107,6 +119,8 @@ PointResult point_from_json(const json& j, const std::vector<std::string>& keys)
   p.force_gradient = val(j["stick_force_gradient_N_per_mps"]);
   p.max_real_held = val(j["max_real_held_per_s"]);
   p.max_real_free = val(j["max_real_free_per_s"]);
+  p.static_held = j.contains("static_indicator_held") ? val(j["static_indicator_held"]) : nan_;
+  p.static_free = j.contains("static_indicator_free") ? val(j["static_indicator_free"]) : nan_;
   auto str = [&](const char* k) { return j.contains(k) && j[k].is_string() ? j[k].get<std::string>() : std::string(); };
   p.mode_held = str("deciding_mode_held");
   p.mode_free = str("deciding_mode_free");
@@ -152,22 +166,19 @@ json sweep_json(const SweepResult& r) {
          {"points", pts}, {"caution", kCaution}};
   if (r.has_boundary) {
     auto b = [](const Boundary& x, bool free) {
-      // the closed form is a static criterion: when the root that crosses is a complex pair it
-      // does not apply, and the comparison covers the eigenvalue and time-domain methods only
-      const double cf = x.closed_form_applies ? x.closed_form : nan_;
+      const BoundarySpreads sp = boundary_spreads(x);
       auto text = [](const std::string& t) { return t.empty() ? json(nullptr) : json(t); };
-      json o{{"closed_form", num(cf)}, {"eigenvalue", num(x.eigenvalue)}, {"time_domain", num(x.time_domain)},
+      json o{{"closed_form", num(x.closed_form)}, {"static_crossing", num(x.static_crossing)},
+             {"static_crossing_mode", text(x.static_mode)}, {"eigenvalue", num(x.eigenvalue)},
+             {"first_crossing_mode", text(x.crossing_mode)},
+             {"first_crossing_oscillatory", std::isfinite(x.eigenvalue) ? json(x.crossing_oscillatory) : json(nullptr)},
+             {"first_crossing_period_s", num(x.crossing_period)}, {"time_domain", num(x.time_domain)},
              {"closed_form_applies", x.closed_form_applies}, {"closed_form_note", text(x.closed_form_note)},
              {"crossing_mode", text(x.crossing_mode)}, {"roots_set_aside", text(x.set_aside)},
-             {"time_domain_check", text(x.time_domain_check)}, {"error", text(x.error)}};
+             {"time_domain_check", text(x.time_domain_check)}, {"error", text(x.error)},
+             {"spread_static", num(sp.closed_vs_static)}, {"spread_dynamic", num(sp.first_vs_time)},
+             {"spread", num(sp.three_way)}, {"comparisons", kBoundaryComparisons}};
       if (free) o["closed_form_aerodynamic"] = num(x.closed_form_aerodynamic);
-      if (!x.closed_form_applies) o["closed_form_static_criterion"] = num(x.closed_form);
-      double lo = std::numeric_limits<double>::infinity(), hi = -lo;
-      int n = 0;
-      for (double v : {cf, x.eigenvalue, x.time_domain})
-        if (std::isfinite(v)) { lo = std::min(lo, v); hi = std::max(hi, v); ++n; }
-      o["spread"] = n >= 2 ? json(hi - lo) : json(nullptr);
-      o["spread_methods"] = n;
       return o;
     };
     j["boundary"] = {{"held", b(r.held, false)}, {"free", b(r.free, true)}};
@@ -264,24 +275,35 @@ std::string sweep_table(const SweepResult& r) {
   o << "\n";
   if (r.has_boundary) {
     auto pc = [](double v) { return std::isfinite(v) ? fixed(100 * v, 2) : std::string("not found"); };
-    char line[200];
+    char line[240];
     o << "\nhands-off divergence boundary (CG, % MAC):\n";
-    std::snprintf(line, sizeof line, "  %-12s %14s %14s %14s\n", "", "closed form", "eigenvalue", "time domain");
+    std::snprintf(line, sizeof line, "  %-11s %12s %14s %14s %-22s %12s\n", "", "closed form", "static cross.",
+                  "first crossing", "(its mode)", "time domain");
     o << line;
-    auto cf = [&](const Boundary& b) { return b.closed_form_applies ? pc(b.closed_form) : std::string("n/a (osc.)"); };
-    std::snprintf(line, sizeof line, "  %-12s %14s %14s %14s\n", "stick held", cf(r.held).c_str(),
-                  pc(r.held.eigenvalue).c_str(), pc(r.held.time_domain).c_str());
-    o << line;
-    std::snprintf(line, sizeof line, "  %-12s %14s %14s %14s\n", "stick free", cf(r.free).c_str(),
-                  pc(r.free.eigenvalue).c_str(), pc(r.free.time_domain).c_str());
-    o << line;
+    auto mode = [](const Boundary& b) {
+      if (!std::isfinite(b.eigenvalue)) return std::string("-");
+      return b.crossing_oscillatory ? "osc., period " + fixed(b.crossing_period, 0) + " s" : std::string("real");
+    };
+    for (const auto& [name, b] : {std::pair<const char*, const Boundary*>{"stick held", &r.held}, {"stick free", &r.free}}) {
+      std::snprintf(line, sizeof line, "  %-11s %12s %14s %14s %-22s %12s\n", name, pc(b->closed_form).c_str(),
+                    pc(b->static_crossing).c_str(), pc(b->eigenvalue).c_str(), ("(" + mode(*b) + ")").c_str(),
+                    pc(b->time_domain).c_str());
+      o << line;
+    }
+    o << "  compared: " << kBoundaryComparisons << "\n";
     o << "  (free closed form includes the constant hinge moments; aerodynamic stick-free neutral point "
       << pc(r.free.closed_form_aerodynamic) << ")\n";
     for (const auto& [name, b] : {std::pair<const char*, const Boundary*>{"held", &r.held}, {"free", &r.free}}) {
-      if (!b->crossing_mode.empty()) o << "  " << name << ": the root that crosses zero is the " << b->crossing_mode << "\n";
-      if (!b->closed_form_applies)
-        o << "  " << name << ": closed form not applicable: " << b->closed_form_note << " (static criterion "
-          << pc(b->closed_form) << "); compare the eigenvalue and time-domain columns only\n";
+      const BoundarySpreads sp = boundary_spreads(*b);
+      o << "  " << name << ": closed form - static crossing "
+        << (std::isfinite(sp.closed_vs_static) ? fixed(100 * (b->closed_form - b->static_crossing), 2) : "-")
+        << ", first crossing - time domain "
+        << (std::isfinite(sp.first_vs_time) ? fixed(100 * (b->eigenvalue - b->time_domain), 2) : "-") << " % MAC\n";
+      if (!b->crossing_mode.empty())
+        o << "  " << name << ": the first root to cross zero is the " << b->crossing_mode << "\n";
+      if (!b->static_mode.empty())
+        o << "  " << name << ": the real root that crosses at the static crossing is the " << b->static_mode << "\n";
+      if (!b->closed_form_note.empty()) o << "  " << name << ": NOTE " << b->closed_form_note << "\n";
       if (!b->set_aside.empty()) o << "  " << name << ": " << b->set_aside << "\n";
       if (!b->time_domain_check.empty()) o << "  " << name << ": time domain " << b->time_domain_check << "\n";
       if (!b->error.empty()) o << "  " << name << ": " << b->error << "\n";

@@ -373,9 +373,12 @@ void findings_limits(std::vector<Finding>& out, const ReportData& d, const Facts
     const Boundary& b = d.cg_sweep.free;
     Finding x;
     x.topic = "Hands-off divergence boundary";
-    x.measured = "The hands-off airplane starts to diverge at CG " + pct(b.eigenvalue, 2) + " % MAC (eigenvalue), " +
-                 pct(b.time_domain, 2) + " % MAC (time response), " + pct(b.closed_form, 2) +
-                 " % MAC (closed form with the constant hinge moments; " + pct(b.closed_form_aerodynamic, 2) +
+    x.measured = "The hands-off airplane starts to diverge at CG " + pct(b.eigenvalue, 2) + " % MAC (eigenvalue" +
+                 (b.crossing_oscillatory ? ", an oscillatory divergence of period " + number(b.crossing_period, 0) + " s"
+                                         : std::string()) +
+                 "), " + pct(b.time_domain, 2) + " % MAC (time response). A real root crosses zero at " +
+                 pct(b.static_crossing, 2) + " % MAC, against " + pct(b.closed_form, 2) +
+                 " % MAC from the closed form with the constant hinge moments (" + pct(b.closed_form_aerodynamic, 2) +
                  " % MAC without). With the stick held: " + pct(d.cg_sweep.held.eigenvalue, 2) + " % MAC (eigenvalue).";
     x.criterion = "The stated aft CG limit, " + pct(m.envelope_aft) + " % MAC (the airplane's own data).";
     x.source = "the scenario's [envelope] (manufacturer's data)";
@@ -1317,22 +1320,27 @@ void page_cg_sweep(Page& pg, PageCtx& c) {
                 "Short-period damping ratio against CG (gaps: no oscillatory short-period mode at that CG).");
     if (r.has_boundary) {
       Table t;
-      t.head = {"CG where the airplane starts to diverge [% MAC]", "closed form", "eigenvalue", "time response", "spread"};
-      t.numeric = {false, true, true, true, true};
-      auto spread = [](const Boundary& b) {
-        const double lo = std::min({b.closed_form, b.eigenvalue, b.time_domain});
-        const double hi = std::max({b.closed_form, b.eigenvalue, b.time_domain});
-        return number(100 * (hi - lo), 2);
+      t.head = {"CG where the airplane starts to diverge [% MAC]", "closed form", "static crossing",
+                "first crossing", "time response", "closed form - static", "first - time"};
+      t.numeric = {false, true, true, true, true, true, true};
+      auto row = [](const char* name, const Boundary& b, const std::string& cf) {
+        const BoundarySpreads sp = boundary_spreads(b);
+        const std::string first = pct(b.eigenvalue, 2) +
+            (b.crossing_oscillatory ? "<br><span class=\"muted\">oscillatory, period " + number(b.crossing_period, 0) + " s</span>"
+                                    : std::string());
+        return std::vector<std::string>{name, cf, pct(b.static_crossing, 2), first, pct(b.time_domain, 2),
+                                        number(100 * sp.closed_vs_static, 2), number(100 * sp.first_vs_time, 2)};
       };
-      t.rows.push_back({"stick held", pct(r.held.closed_form, 2), pct(r.held.eigenvalue, 2), pct(r.held.time_domain, 2), spread(r.held)});
-      t.rows.push_back({"stick free", pct(r.free.closed_form, 2) + "<br><span class=\"muted\">aerodynamic only " +
-                                          pct(r.free.closed_form_aerodynamic, 2) + "</span>",
-                        pct(r.free.eigenvalue, 2), pct(r.free.time_domain, 2), spread(r.free)});
+      t.rows.push_back(row("stick held", r.held, pct(r.held.closed_form, 2)));
+      t.rows.push_back(row("stick free", r.free, pct(r.free.closed_form, 2) + "<br><span class=\"muted\">aerodynamic only " +
+                                                     pct(r.free.closed_form_aerodynamic, 2) + "</span>"));
       h += table_html(t);
       h += "<p class=\"note\">Closed form: the stick-fixed neutral point (held) and the apparent stick-free point with the "
            "constant hinge moments (free). Eigenvalue: the largest real root crossing zero, bisected between grid points. "
            "Time response: the growth rate of the slow motion read from time runs by the matrix-pencil method, crossing zero. "
-           "The closed form leaves out the speed and downwash-lag couplings that the other two include.</p>\n";
+           "The closed form leaves out the speed and downwash-lag couplings that the other two include. Static crossing: "
+           "where a real root passes through zero (det A, neutral roots set aside, changes sign). Compared: " +
+           std::string(kBoundaryComparisons) + ".</p>\n";
     }
   }
 }
