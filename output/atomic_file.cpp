@@ -12,8 +12,11 @@ namespace fs = std::filesystem;
 
 namespace {
 std::string temp_name(const fs::path& target) {
-  return (target.parent_path() / ("." + target.filename().string() + ".tmp" + std::to_string(::getpid())))
-      .string();
+  std::string name = ".";  // appended piece by piece: gcc 12's -Wrestrict misreads a chain of +
+  name += target.filename().string();
+  name += ".tmp";
+  name += std::to_string(::getpid());
+  return (target.parent_path() / name).string();
 }
 
 void write_temp(const std::string& tmp, const std::string& content) {
