@@ -2,9 +2,8 @@
 """Rerun every `$ ./build/floatpitch ...` command of the README and put its real output under it.
 
 Run from the top of the repository after a build: python3 scripts/refresh_readme_outputs.py
-The output shown under a command is replaced by what the command prints now (stdout, then
-stderr). Where the README shows a shortened output (a line "..."), the same number of lines is
-kept from the start and from the end of the new output, with "..." between them. Commands run in
+The output shown under a command is replaced by what the command prints now: its standard
+output, and its standard error too when it fails (the message is what it shows). Commands run in
 a scratch copy of scenarios/ and tests/ so that nothing in the tree is written; the window
 command (./build/ui/...) is left as it is. `$ echo $?` lines and what follows them are kept.
 """
@@ -47,12 +46,8 @@ def main():
             shown.append(lines[i])
             i += 1
         r = subprocess.run(cmd, shell=True, cwd=work, capture_output=True, text=True)
-        new = (r.stdout + r.stderr).rstrip("\n").split("\n")
-        if "..." in shown:
-            k = shown.index("...")
-            head, tail = k, len(shown) - k - 1
-            if len(new) > head + tail + 1:
-                new = new[:head] + ["..."] + (new[len(new) - tail:] if tail else [])
+        # stdout as printed; stderr too when the command fails (its message is what it shows)
+        new = (r.stdout + (r.stderr if r.returncode != 0 else "")).rstrip("\n").split("\n")
         out.extend(new)
         print(f"{cmd[:70]}: exit {r.returncode}, {len(new)} lines", file=sys.stderr)
     open(path, "w", encoding="utf-8").write("\n".join(out))

@@ -3,8 +3,8 @@
 //
 // parallel_for(n, jobs, f) calls f(i) for i = 0..n-1 on up to `jobs` threads (the caller's
 // thread included), handing out indices one at a time, so results written to slot i do not
-// depend on the thread count or the order. Progress prints a bar on a terminal (stderr), or a
-// line every tenth of the work otherwise; tick() is thread-safe.
+// depend on the thread count or the order. Progress draws a bar in place on a terminal (stderr)
+// and stays quiet otherwise; tick() is thread-safe.
 #pragma once
 
 #include <algorithm>
@@ -25,10 +25,9 @@ struct Progress {
   long total;
   std::atomic<long> done{0};
   std::chrono::steady_clock::time_point t0 = std::chrono::steady_clock::now();
-  long last_printed = -1;
   std::mutex m;
   const char* unit;   // what is counted ("points", "runs")
-  const char* label;  // prefix of the non-terminal lines ("sweep", "seeds")
+  const char* label;  // what is running ("sweep", "seeds")
   Progress(bool en, long n, const char* unit_ = "points", const char* label_ = "sweep")
       : enabled(en), tty(::isatty(2) != 0), total(n), unit(unit_), label(label_) {}
   void tick() {
@@ -46,13 +45,8 @@ struct Progress {
       std::fprintf(stderr, "\r[%s%s] %ld/%ld %s  %.1f/s  %.1f s left ", std::string(f, '#').c_str(),
                    std::string(w - f, '.').c_str(), d, total, unit, rate, left);
       if (d == total) std::fprintf(stderr, "\n");
-    } else {
-      const long step = std::max(1L, total / 10);
-      if (d == total || d / step != last_printed / step) {
-        std::fprintf(stderr, "%s: %ld/%ld %s, %.1f %s/s, %.1f s left\n", label, d, total, unit, rate, unit, left);
-        last_printed = d;
-      }
     }
+    // not a terminal (a log, a pipe, a batch job): quiet, so that logs hold only results
   }
 };
 
