@@ -35,11 +35,6 @@ namespace {
 
 constexpr double nan_ = std::numeric_limits<double>::quiet_NaN();
 
-std::string trim_ws(const std::string& s) {
-  const auto b = s.find_first_not_of(" \t");
-  const auto e = s.find_last_not_of(" \t");
-  return b == std::string::npos ? std::string() : s.substr(b, e - b + 1);
-}
 
 bool is_cg_key(const std::string& k) { return k == "cg" || k == "mass.cg"; }
 

@@ -32,6 +32,7 @@
 #include "output/sweep_text.hpp"
 #include "util/parallel.hpp"
 #include "util/sha256.hpp"
+#include "util/format.hpp"
 #include "util/ticks.hpp"
 #include "report/svg.hpp"
 #include "version.hpp"
@@ -46,11 +47,6 @@ namespace {
 constexpr double nan_ = std::numeric_limits<double>::quiet_NaN();
 
 
-std::string trim_ws(const std::string& s) {
-  const auto b = s.find_first_not_of(" \t");
-  const auto e = s.find_last_not_of(" \t");
-  return b == std::string::npos ? std::string() : s.substr(b, e - b + 1);
-}
 
 ScenarioError option_error(const std::string& option, const std::string& message) {
   return ScenarioError{"", 0, 0, "", option + ": " + message};

@@ -84,16 +84,7 @@ std::string axis_title(const Axis& a) {
   return a.label + " [" + a.unit + "]";
 }
 
-struct Range {
-  double lo = std::numeric_limits<double>::infinity();
-  double hi = -std::numeric_limits<double>::infinity();
-  void add(double v) {
-    if (!std::isfinite(v)) return;
-    lo = std::min(lo, v);
-    hi = std::max(hi, v);
-  }
-  bool empty() const { return !(lo <= hi); }
-};
+using Range = Extent;  // util/ticks.hpp
 
 // The axis range: given, or the data's rounded out to ticks.
 Ticks resolve(const Axis& a, Range r, double& lo, double& hi, int target) {

@@ -120,16 +120,7 @@ void legend_sample(ImDrawList* dl, ImVec2 a, float w, const Series& s) {
 }
 
 // Data extent of the series: x over all points, y over the points with x in [xlo, xhi].
-struct Extent {
-  double lo = std::numeric_limits<double>::infinity();
-  double hi = -std::numeric_limits<double>::infinity();
-  void add(double v) {
-    if (!std::isfinite(v)) return;
-    lo = std::min(lo, v);
-    hi = std::max(hi, v);
-  }
-  bool empty() const { return !(lo <= hi); }
-};
+using Extent = fp::Extent;  // util/ticks.hpp
 
 void fit_axis(AxisRange& ax, Extent e, double min_span, bool include_zero, int max_ticks, bool snap) {
   if (e.empty()) {

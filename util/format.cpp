@@ -11,4 +11,10 @@ std::string fixed(double v, int decimals) {
   return buf;
 }
 
+std::string trim_ws(const std::string& s) {
+  const auto b = s.find_first_not_of(" \t");
+  const auto e = s.find_last_not_of(" \t");
+  return b == std::string::npos ? std::string() : s.substr(b, e - b + 1);
+}
+
 }  // namespace fp

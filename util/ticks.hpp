@@ -12,9 +12,22 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <vector>
 
 namespace fp {
+
+// The extent of some data: the smallest and largest finite value added (empty until one is).
+struct Extent {
+  double lo = std::numeric_limits<double>::infinity();
+  double hi = -std::numeric_limits<double>::infinity();
+  void add(double v) {
+    if (!std::isfinite(v)) return;
+    lo = std::min(lo, v);
+    hi = std::max(hi, v);
+  }
+  bool empty() const { return !(lo <= hi); }
+};
 
 enum class TickFit { nearest, at_most };
 
