@@ -38,3 +38,45 @@ TEST_CASE("both deflection stops push the surface back and never pull") {
     CHECK(circuit_hinge_moment(a, hi + e, -10.0) == doctest::Approx(0.0));
   }
 }
+
+namespace {
+
+Eval eval_at(const Airplane& a, double de, Stick stick) {
+  const Plant p = make_plant(a);
+  const State x = steady_state(p, 55.0, 0.05, 0.05, 1000.0, de);
+  Controls c;
+  c.stick = stick;
+  c.hold_de = de;
+  State d{};
+  Eval e;
+  derivatives(p, GustField{}, x, c, 0.0, d, &e);
+  return e;
+}
+
+}  // namespace
+
+TEST_CASE("a geared tab changes the hinge-moment slope to Ch_delta + k Ch_tab") {
+  // Geared tab: the tab turns k radians per radian of elevator, so the hinge-moment slope with
+  // the elevator is Ch_delta + k Ch_tab (balance for k Ch_tab of opposite sign to Ch_delta;
+  // Etkin and Reid, sec. 2.6, for the tab terms; common practice for the gearing).
+  Airplane a = test::plain_airplane();
+  a.circuit.geared_tab_ratio = 0.5;
+  const double d = 0.02;
+  const Eval e0 = eval_at(a, 0.0, Stick::held), e1 = eval_at(a, d, Stick::held);
+  const double slope = (e1.Ch - e0.Ch) / d;
+  CHECK(slope == doctest::Approx(a.elevator.ch_delta + 0.5 * a.elevator.ch_tab).epsilon(1e-9));
+  CHECK(e1.tab == doctest::Approx(0.5 * d));
+}
+
+TEST_CASE("the bobweight adds its force per g to the force that holds the stick") {
+  // A bobweight of B newtons per g pulls the stick forward: the pilot who holds the stick at n g
+  // must pull B n more (stick force pull positive). Held rigidly, the stick force from the hinge
+  // equation differs by B n between the same airplane with and without it, n read from the model.
+  Airplane a = test::plain_airplane();
+  const Eval e0 = eval_at(a, -0.02, Stick::held);
+  a.circuit.bobweight = 5.0;
+  const Eval e1 = eval_at(a, -0.02, Stick::held);
+  // n at this (not trimmed) state is what the model reports; the body's own acceleration sets it
+  CHECK(e1.stick_force - e0.stick_force == doctest::Approx(5.0 * e1.load_factor).epsilon(0.02));
+  CHECK(e1.stick_force - e0.stick_force > 0.0);
+}
