@@ -41,12 +41,12 @@ TEST_CASE("both deflection stops push the surface back and never pull") {
 
 namespace {
 
-Eval eval_at(const Airplane& a, double de, Stick stick) {
+Eval eval_at(const Airplane& a, double de, Stick stick, double hold_offset = 0.0) {
   const Plant p = make_plant(a);
   const State x = steady_state(p, 55.0, 0.05, 0.05, 1000.0, de);
   Controls c;
   c.stick = stick;
-  c.hold_de = de;
+  c.hold_de = de - hold_offset;
   State d{};
   Eval e;
   derivatives(p, GustField{}, x, c, 0.0, d, &e);
@@ -79,4 +79,16 @@ TEST_CASE("the bobweight adds its force per g to the force that holds the stick"
   // n at this (not trimmed) state is what the model reports; the body's own acceleration sets it
   CHECK(e1.stick_force - e0.stick_force == doctest::Approx(5.0 * e1.load_factor).epsilon(0.02));
   CHECK(e1.stick_force - e0.stick_force > 0.0);
+}
+
+TEST_CASE("cable stretch: the held stick's force grows with the stretch, pull when the surface is trailing edge down of the hand") {
+  // A circuit of stiffness K, referred to the stick [N/m], between the hand (holding where the
+  // elevator would be at hold_de) and the surface at de: the stretch at the stick is
+  // (de - hold_de) / G with the gearing G, so the stick force is F = K (de - hold_de) / G, pull
+  // positive (the surface trailing edge down of the hand pushes the stick forward: the hand pulls).
+  Airplane a = test::plain_airplane();
+  a.circuit.held_stiffness = 300.0;  // [N/m] at the stick
+  const double off = 0.01;           // [rad] surface trailing edge down of the hand
+  const Eval e = eval_at(a, -0.02, Stick::held, off);
+  CHECK(e.stick_force == doctest::Approx(300.0 * off / a.circuit.gearing).epsilon(1e-9));
 }
