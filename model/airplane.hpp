@@ -1,9 +1,10 @@
 // airplane.hpp — the constant description of an airplane and of the flight condition.
 //
-// Plain structs, SI units and radians, one comment a field: meaning [unit] (allowed range).
-// The allowed ranges are enforced by the scenario loader (scenario/keys.cpp), which is the one
-// table from which validation and the README's key reference are made; the comments here
-// say what the physics means by each field.
+// Plain structs, SI units and radians. Each field's comment names the scenario key that sets it;
+// the key table (scenario/keys.cpp, printed by `floatpitch keys` and in the README) is the one
+// text of every key's meaning, unit, allowed range and default. Nothing here repeats it, and
+// tests/docs/param_pointers.py keeps the two in step (every pointer names a key that sets this
+// very field; every key that sets a field here is named beside it).
 //
 // Geometry datum: longitudinal stations are distances AFT of the leading edge of the wing's
 // mean aerodynamic chord (LEMAC) [m]; vertical positions are distances BELOW the centre of
@@ -14,29 +15,27 @@
 
 namespace fp {
 
-// Lift curve with a smooth stall (see aero.hpp for the blending law).
+// Lift curve with a smooth stall (model/dynamics.cpp has the blending law).
 struct LiftCurve {
-  double slope = 5.0;          // lift-curve slope in the linear range [1/rad] (0.5..10)
-  double alpha_zero = 0.0;     // zero-lift angle of attack [rad] (-0.3..0.3)
-  double alpha_stall = 0.28;   // angle at which the curve leaves the linear law [rad] (0.05..0.6)
-  double stall_sharpness = 60; // blending sharpness of the stall [1/rad] (5..200)
-  // Optional table of (alpha [rad], CL [-]) pairs; when not empty it replaces the law above
-  // (linear interpolation, flat-plate law beyond its ends).
-  std::vector<std::pair<double, double>> table;
+  double slope = 5.0;  // key wing.lift_slope, tail.lift_slope
+  double alpha_zero = 0.0;  // key wing.alpha_zero (the tail section is symmetric: no tail key)
+  double alpha_stall = 0.28;  // key wing.alpha_stall, tail.alpha_stall
+  double stall_sharpness = 60;  // key wing.stall_sharpness, tail.stall_sharpness
+  std::vector<std::pair<double, double>> table;  // key wing.cl_table (empty: the law above)
 };
 
 struct WingBody {
-  double area = 12.0;          // wing reference area S [m^2] (0.05..200)
-  double mac = 1.4;            // mean aerodynamic chord c [m] (0.05..10)
-  double span = 9.0;           // wing span b [m] (0.3..60)
-  LiftCurve lift;              // wing-body lift curve (a_wb, alpha_0, stall)
-  double cd0 = 0.03;           // zero-lift drag coefficient of the whole airplane [-] (0..0.5)
-  double k_induced = 0.05;     // induced-drag factor, CD = CD0 + k CL^2 [-] (0..0.5)
-  double h_ac = 0.25;          // wing-body aerodynamic centre [fraction of MAC aft of LEMAC] (-0.5..1)
-  double z_ac = 0.0;           // wing-body aerodynamic centre below the CG [m] (-5..5)
-  double cm_ac = -0.05;        // pitching moment about the wing-body a.c. [-] (-0.5..0.5)
-  double cm_alpha_fus = 0.0;   // fuselage pitching-moment slope dCm/dalpha (destabilising > 0) [1/rad] (-2..2)
-  double cm_q = -3.0;          // wing-body and fuselage pitch damping dCm/d(q c/2V) [-] (-50..0)
+  double area = 12.0;  // key wing.area
+  double mac = 1.4;  // key wing.mac
+  double span = 9.0;  // key wing.span
+  LiftCurve lift;  // key wing.lift_slope, wing.alpha_zero, wing.alpha_stall, wing.stall_sharpness, wing.cl_table
+  double cd0 = 0.03;  // key wing.cd0
+  double k_induced = 0.05;  // key wing.k_induced
+  double h_ac = 0.25;  // key wing.h_ac
+  double z_ac = 0.0;  // key wing.z_ac
+  double cm_ac = -0.05;  // key wing.cm_ac
+  double cm_alpha_fus = 0.0;  // key wing.cm_alpha_fus
+  double cm_q = -3.0;  // key wing.cm_q
 };
 
 // Downwash lag model (DEVELOPERS.md, "The equations"): the tail feels the
@@ -44,77 +43,73 @@ struct WingBody {
 enum class DownwashLag { none, first_order, chain };
 
 struct Tail {
-  double area = 2.2;            // horizontal tail area S_t (including elevator) [m^2] (0.01..50)
-  double x_ac = 4.6;            // tail aerodynamic centre, aft of LEMAC [m] (0.1..30)
-  double z_ac = -0.3;           // tail aerodynamic centre below the CG [m] (negative = above) (-5..5)
-  double incidence = -0.02;     // tail incidence i_t relative to the body x axis [rad] (-0.3..0.3)
-  LiftCurve lift;               // tail lift curve a_t (alpha_zero is ignored: symmetric section)
-  double eta = 0.9;             // dynamic-pressure ratio q_t/q [-] (0.3..1.2)
-  double eps0 = 0.0;            // downwash at zero wing angle of attack [rad] (-0.2..0.2)
-  double deps_dalpha = 0.4;     // downwash gradient [-] (0..0.9)
-  DownwashLag lag = DownwashLag::first_order;  // downwash lag model
-  int lag_stages = 4;           // stages of the chain (chain only) [-] (1..4)
-  double tau_elevator = 0.5;    // elevator effectiveness dalpha_t/ddelta_e [-] (0.05..1)
-  double tau_tab = 0.1;         // tab effectiveness dalpha_t/ddelta_tab [-] (0..0.5)
+  double area = 2.2;  // key tail.area
+  double x_ac = 4.6;  // key tail.x_ac
+  double z_ac = -0.3;  // key tail.z_ac
+  double incidence = -0.02;  // key tail.incidence
+  LiftCurve lift;  // key tail.lift_slope, tail.alpha_stall, tail.stall_sharpness
+  double eta = 0.9;  // key tail.eta
+  double eps0 = 0.0;  // key tail.eps0
+  double deps_dalpha = 0.4;  // key tail.deps_dalpha
+  DownwashLag lag = DownwashLag::first_order;  // key tail.downwash_lag
+  int lag_stages = 4;  // key tail.lag_stages
+  double tau_elevator = 0.5;  // key tail.tau_elevator
+  double tau_tab = 0.1;  // key tail.tau_tab
 };
 
 // Elevator and its hinge moments. Ch = Ch0 + Ch_alpha alpha_t + Ch_delta delta_e
 // + Ch_tab delta_tab + Ch_rate (delta_e_dot c_e / 2V); hinge moment = Ch q_t S_e c_e.
 struct Elevator {
-  double area = 0.8;            // elevator area aft of the hinge line S_e [m^2] (0.005..20)
-  double chord = 0.3;           // elevator mean chord aft of the hinge c_e [m] (0.01..3)
-  double x_hinge = 4.45;        // hinge line, aft of LEMAC [m] (0.1..30)
-  double z_hinge = -0.3;        // hinge line below the CG [m] (-5..5)
-  double ch0 = 0.0;             // hinge-moment coefficient at zero angles [-] (-0.5..0.5)
-  double ch_alpha = -0.2;       // dCh/dalpha_t [1/rad] (-2..1)
-  double ch_delta = -0.45;      // dCh/ddelta_e [1/rad] (-2..1; 0 only for irreversible circuits)
-  double ch_tab = -0.3;         // dCh/ddelta_tab [1/rad] (-2..2)
-  double ch_rate = -0.5;        // aerodynamic hinge damping dCh/d(delta_e_dot c_e/2V) [-] (-20..0)
-  double delta_min = -0.45;     // trailing-edge-up stop [rad] (-1..0)
-  double delta_max = 0.3;       // trailing-edge-down stop [rad] (0..1)
-  double mass = 4.0;            // elevator (and tab) mass [kg] (0..200)
-  double mass_moment = 0.2;     // static mass moment about the hinge, m_e x_cg, positive when the
-                                // centre of mass is aft of the hinge (unbalanced) [kg m] (-20..20)
-  double inertia = 0.08;        // moment of inertia about the hinge line [kg m^2] (1e-4..50)
+  double area = 0.8;  // key elevator.area
+  double chord = 0.3;  // key elevator.chord
+  double x_hinge = 4.45;  // key elevator.x_hinge
+  double z_hinge = -0.3;  // key elevator.z_hinge
+  double ch0 = 0.0;  // key elevator.ch0
+  double ch_alpha = -0.2;  // key elevator.ch_alpha
+  double ch_delta = -0.45;  // key elevator.ch_delta
+  double ch_tab = -0.3;  // key elevator.ch_tab
+  double ch_rate = -0.5;  // key elevator.ch_rate
+  double delta_min = -0.45;  // key elevator.delta_min
+  double delta_max = 0.3;  // key elevator.delta_max
+  double mass = 4.0;  // key elevator.mass
+  double mass_moment = 0.2;  // key elevator.mass_moment
+  double inertia = 0.08;  // key elevator.inertia
 };
 
 // The circuit between stick and elevator, all given where the pilot feels it (at the stick),
 // and referred to the hinge through the gearing inside the model.
 struct Circuit {
-  bool reversible = true;       // false: powered / irreversible circuit: the elevator cannot float, held case only
-  double gearing = 1.2;         // elevator angle per stick travel G > 0 [rad/m] (0.1..20);
-                                // stick aft (pull) moves the elevator trailing edge up
-  double stick_mass = 1.0;      // equivalent mass of stick and circuit moving with it, at the stick [kg] (0..50)
-  double damping = 0.0;         // viscous damping at the stick [N s/m] (0..1e4)
-  double friction = 0.0;        // Coulomb breakout force at the stick [N] (0..500)
-  double friction_speed = 0.005;// stick speed over which friction is smoothed (tanh) [m/s] (1e-5..0.5)
-  double centering = 0.0;       // centering spring rate at the stick [N/m] (0..1e5)
-  double centering_neutral = 0.0; // elevator angle at which the centering spring is relaxed [rad] (-0.5..0.5)
-  double downspring = 0.0;      // downspring preload, a push on the stick [N] (0..500)
-  double bobweight = 0.0;       // bobweight push on the stick per g of normal load factor [N/g] (0..500)
-  double stop_stiffness = 2e4;  // stop contact stiffness at the hinge [N m/rad] (1..1e7)
-  double stop_damping = 50.0;   // stop contact damping at the hinge [N m s/rad] (0..1e5)
-  double held_stiffness = 0.0;  // held stick: circuit stiffness between hand and surface at the stick
-                                // [N/m] (0 = rigid hold, else 100..1e7)
-  double tab_min = -0.35;       // trim-tab range [rad] (-1..0)
-  double tab_max = 0.35;        // [rad] (0..1)
-  double geared_tab_ratio = 0.0;// tab deflection per elevator deflection (>0 anti-balance,
-                                // <0 balance) [-] (-3..3)
+  bool reversible = true;  // key circuit.reversible
+  double gearing = 1.2;  // key circuit.gearing
+  double stick_mass = 1.0;  // key circuit.stick_mass
+  double damping = 0.0;  // key circuit.damping
+  double friction = 0.0;  // key circuit.friction
+  double friction_speed = 0.005;  // key circuit.friction_speed
+  double centering = 0.0;  // key circuit.centering
+  double centering_neutral = 0.0;  // key circuit.centering_neutral
+  double downspring = 0.0;  // key circuit.downspring
+  double bobweight = 0.0;  // key circuit.bobweight
+  double stop_stiffness = 2e4;  // key circuit.stop_stiffness
+  double stop_damping = 50.0;  // key circuit.stop_damping
+  double held_stiffness = 0.0;  // key circuit.held_stiffness
+  double tab_min = -0.35;  // key circuit.tab_min
+  double tab_max = 0.35;  // key circuit.tab_max
+  double geared_tab_ratio = 0.0;  // key circuit.geared_tab_ratio
 };
 
 struct Propulsion {
-  double max_thrust = 1500.0;   // full-throttle static thrust at sea level [N] (0..1e5)
-  double density_exponent = 1.0;// thrust ~ (rho/rho0)^n [-] (0..2)
-  double speed_exponent = 0.0;  // thrust ~ (V/V_ref)^n (0 jet-like, -1 constant power) [-] (-1.5..0)
-  double reference_speed = 40.0;// V_ref [m/s] (1..300)
-  double z_thrust = 0.0;        // thrust line below the CG (positive gives nose-up moment) [m] (-3..3)
-  double angle = 0.0;           // thrust line angle to body x, positive up [rad] (-0.3..0.3)
+  double max_thrust = 1500.0;  // key propulsion.max_thrust
+  double density_exponent = 1.0;  // key propulsion.density_exponent
+  double speed_exponent = 0.0;  // key propulsion.speed_exponent
+  double reference_speed = 40.0;  // key propulsion.reference_speed
+  double z_thrust = 0.0;  // key propulsion.z_thrust
+  double angle = 0.0;  // key propulsion.angle
 };
 
 struct MassProperties {
-  double mass = 750.0;          // total mass including the elevator [kg] (1..20000)
-  double pitch_inertia = 1000.0;// pitch moment of inertia about the CG (elevator at zero) [kg m^2] (0.01..1e6)
-  double h_cg = 0.25;           // centre of gravity [fraction of MAC aft of LEMAC] (-0.5..1.5)
+  double mass = 750.0;  // key mass.mass
+  double pitch_inertia = 1000.0;  // key mass.pitch_inertia
+  double h_cg = 0.25;  // key mass.cg
 };
 
 struct Airplane {
@@ -128,9 +123,9 @@ struct Airplane {
 
 // The flight condition the airplane is trimmed at.
 struct Condition {
-  double altitude = 1000.0;     // geometric altitude [m] (0..20000)
-  double airspeed = 50.0;       // true airspeed [m/s] (1..300)
-  double flight_path = 0.0;     // flight-path angle gamma [rad] (-0.5..0.5)
+  double altitude = 1000.0;  // key condition.altitude
+  double airspeed = 50.0;  // key condition.airspeed
+  double flight_path = 0.0;  // key condition.flight_path
 };
 
 }  // namespace fp

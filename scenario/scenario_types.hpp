@@ -46,39 +46,37 @@ struct Event {
 enum class ControlsChoice { held, free, both };
 
 struct RunSettings {
-  double duration = 30.0;        // [s] (0.1..3600)
-  double output_step = 0.01;     // output grid step [s] (1e-4..10)
-  double rel_tol = 1e-8;         // integrator relative tolerance [-] (1e-12..1e-3)
-  double abs_tol = 1e-9;         // integrator absolute tolerance (1e-14..1e-3)
-  double alpha_limit = 0.35;     // |alpha| beyond which the airplane has departed [rad] (0.1..1.5)
-  double q_limit = 2.0;          // |q| beyond which the airplane has departed [rad/s] (0.1..10)
-  double min_airspeed_ratio = 0.5; // airspeed below this fraction of trim = departed [-] (0.05..0.95)
+  double duration = 30.0;  // key run.duration
+  double output_step = 0.01;  // key run.output_step
+  double rel_tol = 1e-8;  // key run.rel_tol
+  double abs_tol = 1e-9;  // key run.abs_tol
+  double alpha_limit = 0.35;  // key run.alpha_limit
+  double q_limit = 2.0;  // key run.q_limit
+  double min_airspeed_ratio = 0.5;  // key run.min_airspeed_ratio
   // Further departure bounds (run/run.hpp "Departure criteria"; DEVELOPERS.md "Run verdicts").
   // Airspeeds are the air-relative true airspeed the CSV prints.
-  double max_airspeed_ratio = 2.0; // above this multiple of trim = departed (overspeed), when the
-                                   // aircraft file states no envelope.max_speed [-] (1.05..20)
-  double floor_altitude = 0.0;   // altitude below which the airplane has departed (the ground of the
-                                 // flat-Earth model at 0) [m] (-1000..30000)
-  double theta_limit = 1.0471975511965976;  // |pitch attitude| beyond which departed [rad] (5..180 deg)
-  double load_factor_max = 5.7;  // load factor above which departed [-] (1.1..20)
-  double load_factor_min = -2.28; // load factor below which departed [-] (-20..0.9)
+  double max_airspeed_ratio = 2.0;  // key run.max_airspeed_ratio
+  double floor_altitude = 0.0;  // key run.floor_altitude
+  double theta_limit = 1.0471975511965976;  // key run.theta_limit
+  double load_factor_max = 5.7;  // key run.load_factor_max
+  double load_factor_min = -2.28;  // key run.load_factor_min
   double dive_speed = 0.0;       // not a key: envelope.max_speed, copied in by run_settings()
                                  // (run/run.hpp); 0 = use max_airspeed_ratio [m/s]
-  ControlsChoice controls = ControlsChoice::both;
-  double let_go_time = 0.0;      // free case: time the pilot lets go [s] (0..duration)
+  ControlsChoice controls = ControlsChoice::both;  // key run.controls
+  double let_go_time = 0.0;  // key run.let_go_time
 };
 
 struct TrimSettings {
-  bool tab_auto = true;          // tab set for zero stick force at the trim condition
-  double tab = 0.0;              // tab setting when not automatic [rad]
+  bool tab_auto = true;  // key trim.tab ("auto", or an angle)
+  double tab = 0.0;  // key trim.tab
 };
 
 // The stated CG envelope of the airplane (fractions of MAC), for the margins and the report.
 struct Envelope {
-  double cg_forward = 0.15;      // [-] (-0.5..1.5)
-  double cg_aft = 0.35;          // [-] (-0.5..1.5)
-  double min_speed = 0.0;        // slowest speed the envelope covers, e.g. 1.3 Vs [m/s] (0 = auto)
-  double max_speed = 0.0;        // V_NE or V_D [m/s] (0 = auto)
+  double cg_forward = 0.15;  // key envelope.cg_forward
+  double cg_aft = 0.35;  // key envelope.cg_aft
+  double min_speed = 0.0;  // key envelope.min_speed
+  double max_speed = 0.0;  // key envelope.max_speed
 };
 
 // Continuous turbulence ([turbulence]; see model/turbulence.hpp and docs/gusts.md).
@@ -87,20 +85,20 @@ enum class TurbulenceSeverity { light, moderate, severe };
 enum class TurbulenceComponents { both, vertical, horizontal };
 
 struct TurbulenceSettings {
-  TurbulenceKind model = TurbulenceKind::none;
-  TurbulenceSeverity severity = TurbulenceSeverity::moderate;
-  double probability = 0.0;      // probability of exceedance instead of severity [-] (0 = use severity; 1e-5..1e-2)
-  TurbulenceComponents components = TurbulenceComponents::both;
-  double sigma_u = 0.0;          // longitudinal intensity [m/s] (0 = from height and severity)
-  double sigma_w = 0.0;          // vertical intensity [m/s] (0 = from height and severity)
-  double scale_u = 0.0;          // longitudinal scale length [m] (0 = from height)
-  double scale_w = 0.0;          // vertical scale length [m] (0 = from height)
-  double height = 0.0;           // height above ground for the tables [m] (0 = condition.altitude)
-  int seed = 1;                  // random seed [-] (0..2147483647)
-  int seeds = 1;                 // number of seeds a run uses (seed, seed+1, ...) [-] (1..10000)
-  double spacing = 0.0;          // sample spacing of the record [m] (0 = half the wing-tail distance, <= L/10)
-  double start_time = 0.0;       // time at which the CG enters the turbulence [s] (0..run.duration)
-  double fade_in = 2.0;          // time over which it rises to full strength [s] (0..600)
+  TurbulenceKind model = TurbulenceKind::none;  // key turbulence.model
+  TurbulenceSeverity severity = TurbulenceSeverity::moderate;  // key turbulence.severity
+  double probability = 0.0;  // key turbulence.probability
+  TurbulenceComponents components = TurbulenceComponents::both;  // key turbulence.components
+  double sigma_u = 0.0;  // key turbulence.sigma_u
+  double sigma_w = 0.0;  // key turbulence.sigma_w
+  double scale_u = 0.0;  // key turbulence.scale_u
+  double scale_w = 0.0;  // key turbulence.scale_w
+  double height = 0.0;  // key turbulence.height
+  int seed = 1;  // key turbulence.seed
+  int seeds = 1;  // key turbulence.seeds
+  double spacing = 0.0;  // key turbulence.spacing
+  double start_time = 0.0;  // key turbulence.start_time
+  double fade_in = 2.0;  // key turbulence.fade_in
 };
 
 // How a [[gust]]'s amplitude is set: given, or by a published design rule (docs/gusts.md).
@@ -113,13 +111,13 @@ enum class GustRule {
 
 // Per [[gust]] (same order as Scenario::gusts): the rule and the tuned-gust search.
 struct GustDesign {
-  GustRule rule = GustRule::amplitude;
-  double design_velocity = 0.0;  // the rule's reference velocity, EAS [m/s] (0 = the rule's own)
-  double alleviation = 1.0;      // gradient_distance: flight profile alleviation factor F_g [-] (0..1)
-  bool length_auto = false;      // derived rules without gust.length: H = 12.5 MAC
-  double tune_min = 0.0;         // tuned-gust search over H from tune_min to tune_max [m] (0 = none)
-  double tune_max = 0.0;
-  int tune_points = 12;          // grid points of the search before refinement [-] (3..200)
+  GustRule rule = GustRule::amplitude;  // key gust.rule
+  double design_velocity = 0.0;  // key gust.design_velocity
+  double alleviation = 1.0;  // key gust.alleviation
+  bool length_auto = false;  // key gust.length (set when a derived rule has no gust.length: H = 12.5 MAC)
+  double tune_min = 0.0;  // key gust.tune_min
+  double tune_max = 0.0;  // key gust.tune_max
+  int tune_points = 12;  // key gust.tune_points
 };
 
 // Where a key's value came from, so that errors about relations between keys can point at
