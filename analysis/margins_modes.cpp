@@ -153,18 +153,22 @@ PerGCurve force_per_g_curve(const Plant& p, const Condition& c, double tab, doub
   return out;
 }
 
+Controls linear_controls(const Trim& t, bool free) {
+  Controls c = t.controls;
+  c.stick = free ? Stick::free : Stick::held;
+  if (free) c.pilot_force = 0.0;
+  return c;
+}
+
 ModesResult compute_modes(const Scenario& s) {
   ModesResult r;
   const auto plant = scenario_plant(s);
-  const Trim t = scenario_trim(*plant, s);
-  Controls c = t.controls;
-  c.stick = Stick::held;
-  r.held_lm = linearise(*plant, t.x, c);
+  r.held_trim = scenario_trim(*plant, s);
+  r.held_lm = linearise(*plant, r.held_trim.x, linear_controls(r.held_trim, false));
   r.held = modes(r.held_lm);
   if (plant->ap.circuit.reversible) {
-    c.stick = Stick::free;
-    c.pilot_force = 0.0;
-    r.free_lm = linearise(*plant, t.x, c);
+    r.free_trim = scenario_hands_off_trim(*plant, s);
+    r.free_lm = linearise(*plant, r.free_trim.x, linear_controls(r.free_trim, true));
     r.free = modes(r.free_lm);
     r.has_free = true;
   }

@@ -76,10 +76,16 @@ struct Margins {
 Margins compute_margins(const Scenario& s, const MarginsOptions& o = {});
 
 struct ModesResult {
+  Trim held_trim, free_trim;        // the equilibria linearised about (free: run/run.hpp
+                                    // scenario_hands_off_trim; the same as held_trim unless the
+                                    // tab is fixed off its hands-off setting)
   LinearModel held_lm, free_lm;
   std::vector<Mode> held, free;
   bool has_free = false;            // false for an irreversible circuit
 };
 ModesResult compute_modes(const Scenario& s);
+// The controls of a linearisation about trim t: the stick held at the trim elevator, or free
+// with no pilot force (t must then be a hands-off equilibrium: scenario_hands_off_trim).
+Controls linear_controls(const Trim& t, bool free);
 
 }  // namespace fp

@@ -10,6 +10,7 @@
 #include <limits>
 #include <mutex>
 #include <numbers>
+#include <optional>
 #include <sstream>
 #include <thread>
 #include <unistd.h>
@@ -25,6 +26,7 @@
 #include "util/rng.hpp"
 #include "util/parallel.hpp"
 #include "run/run.hpp"
+#include "analysis/margins_modes.hpp"
 #include "analysis/signal.hpp"
 
 namespace fp {
@@ -67,11 +69,8 @@ Scenario at_cg(const Scenario& base, double cg) {
 StabilityRoot root_at(const Scenario& base, double cg, bool free) {
   const Scenario s = at_cg(base, cg);
   const auto plant = scenario_plant(s);
-  const Trim t = scenario_trim(*plant, s);
-  Controls c = t.controls;
-  c.stick = free ? Stick::free : Stick::held;
-  c.pilot_force = 0.0;
-  return deciding_root(modes(linearise(*plant, t.x, c)));
+  const Trim t = free ? scenario_hands_off_trim(*plant, s) : scenario_trim(*plant, s);
+  return deciding_root(modes(linearise(*plant, t.x, linear_controls(t, free))));
 }
 
 // The static indicator (static_indicator) at a CG (retrimmed), held or free, with the mode of
@@ -79,11 +78,8 @@ StabilityRoot root_at(const Scenario& base, double cg, bool free) {
 double static_at(const Scenario& base, double cg, bool free, std::string* real_mode = nullptr) {
   const Scenario s = at_cg(base, cg);
   const auto plant = scenario_plant(s);
-  const Trim t = scenario_trim(*plant, s);
-  Controls c = t.controls;
-  c.stick = free ? Stick::free : Stick::held;
-  c.pilot_force = 0.0;
-  const auto ms = modes(linearise(*plant, t.x, c));
+  const Trim t = free ? scenario_hands_off_trim(*plant, s) : scenario_trim(*plant, s);
+  const auto ms = modes(linearise(*plant, t.x, linear_controls(t, free)));
   if (real_mode) {
     const Mode* best = nullptr;
     for (const Mode& m : ms)
@@ -246,7 +242,7 @@ double growth_from_trace(const Trace& tr, const Trim& t, double t0) { return gro
 // neutral root (a neighbouring trim at another altitude) leaves a constant, which is no growth.
 double time_domain_growth(const Scenario& s, bool free, double seconds, double tol_scale) {
   const auto plant = scenario_plant(s);
-  const Trim t = scenario_trim(*plant, s);
+  const Trim t = free ? scenario_hands_off_trim(*plant, s) : scenario_trim(*plant, s);
   RunSettings rs = run_settings(s);
   rs.duration = seconds;
   rs.output_step = 0.05;
@@ -304,9 +300,7 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
     r.np_fixed = mn.fixed;
     r.np_free = rev ? mn.free : nan_;
     r.force_gradient = rev ? stick_force_gradient(*plant, s.condition, tf.tab) : nan_;
-    Controls c = t.controls;
-    c.stick = Stick::held;
-    const auto mh = modes(linearise(*plant, t.x, c));
+    const auto mh = modes(linearise(*plant, t.x, linear_controls(t, false)));
     const StabilityRoot dh = deciding_root(mh);
     r.max_real_held = dh.found ? dh.root.real() : nan_;
     r.mode_held = dh.mode;
@@ -316,10 +310,18 @@ PointResult evaluate_point(const Scenario& base, const std::vector<std::string>&
     r.sp_damping_held = sp ? sp->damping : nan_;
     r.sp_frequency_held = sp ? sp->frequency : nan_;
     r.max_real_free = r.static_free = r.sp_damping_free = r.sp_frequency_free = nan_;
+    // the free side about its hands-off equilibrium; a fixed tab that trims hands-off nowhere
+    // leaves the held side standing and says why in the row's reason
+    std::optional<Trim> th;
     if (rev) {
-      c.stick = Stick::free;
-      c.pilot_force = 0;
-      const auto mf = modes(linearise(*plant, t.x, c));
+      try {
+        th = scenario_hands_off_trim(*plant, s);
+      } catch (const TrimError& e) {
+        r.reason = "stick free: no hands-off trim with the fixed tab: " + e.message;
+      }
+    }
+    if (th) {
+      const auto mf = modes(linearise(*plant, th->x, linear_controls(*th, true)));
       const StabilityRoot df = deciding_root(mf);
       r.max_real_free = df.found ? df.root.real() : nan_;
       r.mode_free = df.mode;

@@ -75,7 +75,7 @@ struct PointResult {
   long index = 0;
   std::vector<double> inputs;        // SI values of the varied/sampled keys
   bool ok = false;
-  std::string reason;                // when not ok
+  std::string reason;                // when not ok; on a trimmed point, why a side is missing
   double trim_alpha_deg = 0, trim_elevator_deg = 0, trim_tab_deg = 0;  // [deg] (kept in the file's unit)
   double np_fixed_cf = 0, np_free_cf = 0, np_apparent_cf = 0, np_fixed = 0, np_free = 0;
   double cg = 0;

@@ -178,8 +178,13 @@ json modes_json(const ModesResult& r) {
                 {"imag", d.found ? json(d.root.imag()) : json(nullptr)}, {"stable", d.found && d.root.real() < 0},
                 {"set_aside", aside}};
   };
+  auto about = [](const Trim& t) {
+    return json{{"airspeed_m_s", t.airspeed}, {"alpha_deg", units::to_deg(t.alpha)},
+                {"elevator_deg", units::to_deg(t.de)}, {"tab_deg", units::to_deg(t.tab)}};
+  };
   return json{{"held", arr(r.held)}, {"free", r.has_free ? arr(r.free) : json(nullptr)},
-              {"deciding_root", {{"held", dec(r.held)}, {"free", r.has_free ? dec(r.free) : json(nullptr)}}}};
+              {"deciding_root", {{"held", dec(r.held)}, {"free", r.has_free ? dec(r.free) : json(nullptr)}}},
+              {"linearised_about", {{"held", about(r.held_trim)}, {"free", r.has_free ? about(r.free_trim) : json(nullptr)}}}};
 }
 
 std::string modes_table(const ModesResult& r) {
@@ -219,6 +224,11 @@ std::string modes_table(const ModesResult& r) {
       o << "  set aside: " << x.mode << " " << fixed(x.root.real(), 4) << " /s, " << x.reason << "\n";
   };
   block("Stick held:", r.held);
+  if (r.has_free && std::abs(r.free_trim.airspeed - r.held_trim.airspeed) > 1e-6 * r.held_trim.airspeed)
+    o << "Stick free: about the hands-off trim of the fixed tab (" << fixed(units::to_deg(r.free_trim.tab), 2)
+      << " deg), " << fixed(r.free_trim.airspeed, 2) << " m/s (" << fixed(units::to_kt(r.free_trim.airspeed), 1)
+      << " kt) where the held case is at " << fixed(r.held_trim.airspeed, 2) << " m/s ("
+      << fixed(units::to_kt(r.held_trim.airspeed), 1) << " kt): let go, the airplane settles there\n";
   if (r.has_free) block("Stick free:", r.free);
   else o << "Stick free: none (irreversible circuit)\n";
   return o.str();

@@ -63,7 +63,7 @@ json point_json(const PointResult& p, const std::vector<std::string>& keys) {
   return json{{"index", p.index},
               {"inputs", in},
               {"ok", p.ok},
-              {"reason", p.ok ? json(nullptr) : json(p.reason)},
+              {"reason", p.reason.empty() ? json(nullptr) : json(p.reason)},
               {"cg", num(p.cg)},
               {"trim_alpha_deg", num(p.trim_alpha_deg)},
               {"trim_elevator_deg", num(p.trim_elevator_deg)},
@@ -106,7 +106,7 @@ PointResult point_from_json(const json& j, const std::vector<std::string>& keys)
   p.index = j.at("index").get<long>();
   for (const auto& k : keys) p.inputs.push_back(val(j.at("inputs").at(k)));
   p.ok = j.at("ok").get<bool>();
-  if (!p.ok) p.reason = j.at("reason").get<std::string>();
+  if (j.contains("reason") && j["reason"].is_string()) p.reason = j["reason"].get<std::string>();
   p.cg = val(j["cg"]);
   p.trim_alpha_deg = val(j["trim_alpha_deg"]);
   p.trim_elevator_deg = val(j["trim_elevator_deg"]);

@@ -448,6 +448,16 @@ Trim scenario_trim(const Plant& p, const Scenario& s) {
   return trim_held(p, s.condition, s.trim.tab_auto ? 0.0 : s.trim.tab);
 }
 
+Trim scenario_hands_off_trim(const Plant& p, const Scenario& s) {
+  if (!p.ap.circuit.reversible || s.trim.tab_auto) return scenario_trim(p, s);
+  TrimRequest r;
+  r.condition = s.condition;
+  r.tab = s.trim.tab;
+  r.zero_force = true;
+  r.solve_speed = true;
+  return trim(p, r);
+}
+
 GustField scenario_gust_field(const Scenario& s) {
   GustField g;
   g.gusts = s.gusts;

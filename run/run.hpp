@@ -198,6 +198,12 @@ struct RunOutcome {
 
 // Trim per the scenario's [trim] settings (throws TrimError).
 Trim scenario_trim(const Plant& p, const Scenario& s);
+// The hands-off equilibrium of a scenario, about which every stick-free linearisation and the
+// stick-free time-domain boundary are taken: the trim itself when the tab is set for zero stick
+// force (trim.tab = "auto"); with a fixed tab, the airspeed at which that tab trims hands-off at
+// the condition's altitude and flight path (the airplane let go settles there). Throws
+// TrimError when the tab trims hands-off nowhere. An irreversible circuit: scenario_trim.
+Trim scenario_hands_off_trim(const Plant& p, const Scenario& s);
 // The gust field of a scenario (discrete gusts; turbulence where configured).
 GustField scenario_gust_field(const Scenario& s);
 // Run the scenario's cases (throws TrimError, NumericalFailure, ScenarioError).
