@@ -79,6 +79,12 @@ struct Envelope {
   double cg_aft = 0.35;          // [-] (-0.5..1.5)
   double min_speed = 0.0;        // slowest speed the envelope covers, e.g. 1.3 Vs [m/s] (0 = auto)
   double max_speed = 0.0;        // V_NE or V_D [m/s] (0 = auto)
+  // The weights of the stated envelope and the category's limit load factor: the corners that
+  // the report and `floatpitch matrix` cover (analysis/envelope.hpp).
+  double mass_min = 0.0;         // lightest mass of the envelope [kg] (1..20000; 0 = mass.mass)
+  double mass_max = 0.0;         // heaviest mass of the envelope, the W of the force criteria [kg]
+                                 // (1..20000; 0 = mass.mass)
+  double limit_load_factor = 3.8;// positive limit maneuvering load factor [-] (1.5..10)
 };
 
 // Continuous turbulence ([turbulence]; see model/turbulence.hpp and docs/gusts.md).
