@@ -500,6 +500,7 @@ ReportData make_report(const ReportOptions& o) {
   {
     const auto st = wing_stall(s.airplane.wing.lift);
     d.cl_max = st.CLmax;
+    d.stall_alpha = st.alpha;
     d.stall_speed = stall_speed(s.airplane, s.condition.altitude);
   }
 

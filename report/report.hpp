@@ -108,6 +108,7 @@ struct ReportData {
   Trim trim_held, trim_free, trim_start;
   double stall_speed = 0;               // 1 g, at the condition's altitude [m/s TAS]
   double cl_max = 0;
+  double stall_alpha = 0;               // wing-body angle of attack at CLmax (model/trim wing_stall) [rad]
   Margins margins;
   PerGCurve force_per_g;  // stick force against load factor at the hands-off tab, to 3.5 g or where trim ends
   ModesResult modes;

@@ -583,16 +583,27 @@ void findings_limits(std::vector<Finding>& out, const ReportData& d, const Facts
       x.measured = "Over " + std::to_string(b.n) + " samples (" + (u.default_band ? "Ch_alpha and Ch_delta \u00b1" +
                    number(100 * d.options.hinge_band, 0) + " %, uniform" : std::string("the bands given")) +
                    ") the stick-free neutral point lies between " + pct(b.min) + " and " + pct(b.max) +
-                   " % MAC (5 to 95 %: " + pct(b.p5) + " to " + pct(b.p95) + "). At the stated aft limit the smallest "
-                   "stick-free margin is " + plus_pct(b.min - m.envelope_aft) + " % MAC.";
+                   " % MAC (5 to 95 %: " + pct(b.p5) + " to " + pct(b.p95) + ").";
+      // the worst case is the worst of the samples and of the band's corners (the table of section 7),
+      // so that the finding and the table give the same figure
+      double worst = b.min;
+      bool from_corner = false;
+      if (u.has_corners)
+        for (const auto& p : u.corners.points)
+          if (p.ok && p.np_free < worst) {
+            worst = p.np_free;
+            from_corner = true;
+          }
+      x.measured += " At the stated aft limit the smallest stick-free margin is " + plus_pct(worst - m.envelope_aft, 2) +
+                    " % MAC (" + (from_corner ? "at a corner of the band, section 7's table" : "among the samples") + ").";
       x.criterion = "Zero stick-free margin, and the minimum of " + pct(d.options.min_margin) +
                     " % MAC used for the aft limit (an option of the tool).";
       cite(x, d, Topic::uncertainty);
-      x.comparison = b.min - m.envelope_aft >= d.options.min_margin
-                         ? "Every sample keeps at least the minimum margin at the stated aft limit."
-                         : b.min - m.envelope_aft >= 0
-                               ? "Some samples fall below the minimum margin at the stated aft limit, none below zero."
-                               : "Some samples put the stick-free neutral point forward of the stated aft limit.";
+      x.comparison = worst - m.envelope_aft >= d.options.min_margin
+                         ? "Every sample and corner keeps at least the minimum margin at the stated aft limit."
+                         : worst - m.envelope_aft >= 0
+                               ? "Part of the band falls below the minimum margin at the stated aft limit, none below zero."
+                               : "Part of the band puts the stick-free neutral point forward of the stated aft limit.";
       out.push_back(x);
     }
   }
@@ -1363,9 +1374,16 @@ void page_summary(Page& pg, PageCtx& c) {
                         pct(d.cg_sweep.free.eigenvalue, 2)});
     if (f.g1) {
       const RunOutcome& o = *f.g1->outcome;
-      auto outc = [](const CaseResult* c) {
+      auto outc = [&](const CaseResult* c) {
         if (!c) return std::string("\u2013");
-        if (c->departure.departed) return "<b>departs at " + number(c->departure.time, 1) + " s</b>";
+        if (c->departure.departed) {
+          // a departure that reached the stall is a stall, and beyond the model's validity
+          double amax = -1e9;
+          for (const double al : c->trace.ch[ch_alpha]) amax = std::max(amax, al);
+          const bool stall = c->departure.criterion == "angle_of_attack" || amax >= d.stall_alpha;
+          return "<b>departs at " + number(c->departure.time, 1) + " s</b>" +
+                 (stall ? std::string(" (a stall: beyond the model's validity)") : std::string());
+        }
         return "no departure in " + number(c->trace.size() ? c->trace.ch[ch_time].back() : 0.0, 0) + " s";
       };
       t.rows.push_back({"gust run (Figure 2)", outc(o.held.get()), outc(o.free.get())});

@@ -224,7 +224,8 @@ std::vector<Key> make_table_keys() {
        .min = 1, .max = 20000, .zero_ok = true, .num = FP_NUM(envelope.mass_max)},
       {.name = "envelope.limit_load_factor",
        .meaning = "positive limit maneuvering load factor of the airplane's category, where the maneuvering stick "
-                  "force is read",
+                  "force is read (default 3.8: normal category, flaps up, 14 CFR Part 23 Appendix A Table 1, 1-1-14 "
+                  "edition)",
        .min = 1.5, .max = 10, .num = FP_NUM(envelope.limit_load_factor)},
 
       // [condition]
