@@ -19,9 +19,17 @@ std::string f(double v, int d) { return std::isfinite(v) ? fixed(v, d) : std::st
 
 std::string release_text(const Release& r) {
   if (!r.failure.empty()) return "not run";
-  if (r.stall) return "STALL" + (r.departed ? " " + f(r.time, 1) + " s" : std::string()) + " (beyond model)";
-  if (r.departed) return "departs " + f(r.time, 1) + " s (" + r.criterion + ")";
-  return "n " + f(r.n_min, 2) + ".." + f(r.n_max, 2);
+  std::string s;
+  if (r.stall) {
+    s = "STALL";
+    if (r.departed) s.append(" ").append(f(r.time, 1)).append(" s");
+    s.append(" (beyond model)");
+  } else if (r.departed) {
+    s.append("departs ").append(f(r.time, 1)).append(" s (").append(r.criterion).append(")");
+  } else {
+    s.append("n ").append(f(r.n_min, 2)).append("..").append(f(r.n_max, 2));
+  }
+  return s;
 }
 
 json release_json(const Release& r) {
@@ -51,16 +59,16 @@ json release_json(const Release& r) {
 std::string matrix_table(const std::vector<CornerResult>& rs) {
   std::string o;
   char b[512];
-  std::snprintf(b, sizeof b, "%-28s %6s %6s %5s %5s %7s %8s %7s %6s %8s %11s %10s  %s\n", "corner", "CG%MAC", "kg", "KTAS",
+  std::snprintf(b, sizeof b, "%-30s %6s %6s %5s %5s %7s %8s %7s %6s %8s %11s %10s  %s\n", "corner", "CG%MAC", "kg", "KTAS",
                 "KCAS", "SMfree%", "dF/dV", "return", "F/g", "F@n_lim", "zeta sp h/f", "root free", "release +15 % | -15 %");
   o += b;
-  std::snprintf(b, sizeof b, "%-28s %6s %6s %5s %5s %7s %8s %7s %6s %8s %11s %10s\n", "", "", "", "", "", "", "lbf/kt",
+  std::snprintf(b, sizeof b, "%-30s %6s %6s %5s %5s %7s %8s %7s %6s %8s %11s %10s\n", "", "", "", "", "", "", "lbf/kt",
                 "+-%", "N/g", "lbf", "", "1/s");
   o += b;
   for (const auto& r : rs) {
-    std::string label = r.corner.label.size() > 28 ? r.corner.label.substr(0, 27) + "~" : r.corner.label;
+    std::string label = r.corner.label.size() > 30 ? r.corner.label.substr(0, 29) + "~" : r.corner.label;
     if (!r.ok) {
-      std::snprintf(b, sizeof b, "%-28s %6s %6s  FAILED: %s\n", label.c_str(), f(100 * r.cg, 1).c_str(),
+      std::snprintf(b, sizeof b, "%-30s %6s %6s  FAILED: %s\n", label.c_str(), f(100 * r.cg, 1).c_str(),
                     f(r.mass, 0).c_str(), r.failure.c_str());
       o += b;
       continue;
@@ -71,7 +79,7 @@ std::string matrix_table(const std::vector<CornerResult>& rs) {
       ret = f(100 * std::max(m.trim_speed - m.free_return_low, m.free_return_high - m.trim_speed) / m.trim_speed, 1);
     const std::string z = (r.has_sp_held ? f(r.sp_held.damping, 2) : std::string("aper")) + "/" +
                           (r.has_sp_free ? f(r.sp_free.damping, 2) : std::string("aper"));
-    std::snprintf(b, sizeof b, "%-28s %6s %6s %5s %5s %7s %8s %7s %6s %8s %11s %10s  %s | %s%s\n", label.c_str(),
+    std::snprintf(b, sizeof b, "%-30s %6s %6s %5s %5s %7s %8s %7s %6s %8s %11s %10s  %s | %s%s\n", label.c_str(),
                   f(100 * r.cg, 1).c_str(), f(r.mass, 0).c_str(), f(units::to_kt(r.airspeed), 0).c_str(),
                   f(units::to_kt(r.calibrated), 0).c_str(), f(100 * m.margin_free, 1).c_str(),
                   f(m.force_gradient * units::kt / units::lbf, 3).c_str(), ret.c_str(), f(m.force_per_g, 1).c_str(),

@@ -227,7 +227,8 @@ std::string lbf_n(double N, int dec = 1) { return number(N / units::lbf, dec) + 
 std::string release_words(const Release& r) {
   const std::string head = std::string(r.offset > 0 ? "+" : "\u2212") + number(100 * std::abs(r.offset), 0) + " %: ";
   if (!r.failure.empty()) return head + "not run (" + esc(r.failure) + ")";
-  std::string s = head + "released " + number(r.force / units::lbf, 1) + " lbf, ";
+  std::string s = head + "a " + (r.force < 0 ? "push" : "pull") + " of " + number(std::abs(r.force) / units::lbf, 1) +
+                  " lbf released, ";
   if (r.stall)
     s += "<b>stall</b>" + (r.departed ? " at " + number(r.time, 1) + " s" : std::string()) +
          " (beyond the model's validity)";
@@ -355,9 +356,6 @@ std::vector<const CornerResult*> corners_worst_first(const ReportData& d) {
   return out;
 }
 
-std::string corner_name(const CornerResult& c) {
-  return esc(c.corner.label) + " (CG " + pct(c.cg) + " % MAC, " + number(c.mass, 0) + " kg)";
-}
 
 }  // namespace
 
@@ -1253,8 +1251,9 @@ void page_envelope(Page& pg, PageCtx& c) {
     const double lo = s.envelope.mass_min > 0 ? s.envelope.mass_min : m0, hi = s.envelope.mass_max > 0 ? s.envelope.mass_max : m0;
     h += "<div class=\"verdict\"><b>The analysed point lies outside the stated envelope</b>: CG " + pct(cg) + " % MAC, " +
          number(m0, 0) + " kg, against the stated CG limits " + pct(s.envelope.cg_forward) + " to " +
-         pct(s.envelope.cg_aft) + " % MAC and masses " + number(lo, 0) + " to " + number(hi, 0) +
-         " kg. Sections 1 to 8 analyse that point; the table below is the stated envelope's.</div>\n";
+         pct(s.envelope.cg_aft) + " % MAC and " +
+         (lo == hi ? "the one mass of the case (no mass range stated)" : "masses " + number(lo, 0) + " to " + number(hi, 0) + " kg") +
+         ". Sections 1 to 8 analyse that point; the table below is the stated envelope's.</div>\n";
   }
   const auto order = corners_worst_first(d);
   const CornerResult* first_ok = nullptr;

@@ -118,9 +118,13 @@ MatrixCase parse_matrix_case(const std::string& text, const std::string& path) {
           c.*(kFields[fi].member) = v;
           if (std::isfinite(v)) {
             const keys::Key& k = *keys::find(kFields[fi].key, false);
-            label += (label.empty() ? "" : ", ") + std::string(kFields[fi].name) + " " +
-                     number_text(v / keys::display_factor(k)) +
-                     (*keys::display_unit(k) ? " " + std::string(keys::display_unit(k)) : std::string());
+            // "cg 0.3", then the quantities with their units only: "cg 0.3, 1000 ft, 85 kt"
+            const std::string u = keys::display_unit(k);
+            const bool unitless = u.empty() || u == "-";
+            if (!label.empty()) label += ", ";
+            if (unitless) label.append(kFields[fi].name).append(" ");
+            label += number_text(v / keys::display_factor(k));
+            if (!unitless) label.append(" ").append(u);
           }
         }
         c.label = label;
