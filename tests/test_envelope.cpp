@@ -77,7 +77,7 @@ void check_same_release(const fp::Release& a, const fp::Release& b) {
 
 }  // namespace
 
-TEST_CASE("criteria table: every topic of every basis names rows of the one table; texts are quoted or absent") {
+TEST_CASE("criteria table: every topic of every basis names rows of the one table, texts are quoted or absent") {
   for (const auto& b : fp::bases()) {
     CAPTURE(b.key);
     const auto rows = fp::criteria_for(b.key);
@@ -186,7 +186,7 @@ TEST_CASE("matrix: a corner alone equals the same corner inside a parallel matri
   CHECK(all[0].margins.margin_free < all[1].margins.margin_free);
 }
 
-TEST_CASE("matrix case file: grid, corners, envelope; bad input names file, line and key") {
+TEST_CASE("matrix case file: grid, corners, envelope, bad input names file, line and key") {
   SUBCASE("a grid makes every combination, in SI") {
     const auto mc = fp::parse_matrix_case(
         "envelope = true\n[grid]\ncg = [0.2, 0.3]\naltitude = [\"0 ft\", \"1000 ft\", \"2000 ft\"]\n"
@@ -229,7 +229,7 @@ TEST_CASE("matrix case file: grid, corners, envelope; bad input names file, line
   }
 }
 
-TEST_CASE("floatpitch matrix: the envelope's corners and a case file; bad input exits 2") {
+TEST_CASE("floatpitch matrix: the envelope's corners and a case file, bad input exits 2") {
   const Out r = ::shell(kExe + " matrix " + kAft + " --json --jobs 2");
   CAPTURE(r.text);
   REQUIRE(r.status == 0);
@@ -237,12 +237,20 @@ TEST_CASE("floatpitch matrix: the envelope's corners and a case file; bad input 
   REQUIRE(j["corners"].size() == 2);
   CHECK(j.contains("caution"));
   for (const auto& c : j["corners"]) CHECK(c["ok"] == true);
+  // the bundled case: the envelope's 2 corners and a grid of 1 CG x 2 altitudes x 2 speeds
+  const Out c = ::shell(kExe + " matrix " + kAft + " --json --cases " + kSrc + "/scenarios/matrix/orvane_corners.toml");
+  REQUIRE(c.status == 0);
+  const auto cj = nlohmann::json::parse(c.text);
+  REQUIRE(cj["corners"].size() == 6);
+  // the first two are the envelope's, identical to the run without the case file
+  CHECK(cj["corners"][0] == j["corners"][0]);
+  CHECK(cj["corners"][1] == j["corners"][1]);
   const Out bad = ::shell(kExe + " matrix " + kAft + " --cases /nonexistent/case.toml");
   CHECK(bad.status == 2);
   CHECK(bad.text.find("/nonexistent/case.toml") != std::string::npos);
 }
 
-TEST_CASE("floatpitch report: the first page is the stated envelope; the criteria table; findings cite only its rows") {
+TEST_CASE("floatpitch report: the first page is the stated envelope, the criteria table, findings cite only its rows") {
   const fs::path out = fs::path(FP_BINARY_DIR) / "test_envelope" / "rep";
   fs::remove_all(out);
   const Out r = ::shell(kExe + " report " + kAft + " --out " + out.string() + " --jobs 2 --samples 4");
