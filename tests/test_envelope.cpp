@@ -142,18 +142,20 @@ TEST_CASE("calibrated airspeed: equals TAS at sea level, tends to EAS at low Mac
 TEST_CASE("matrix: a corner alone equals the same corner inside a parallel matrix run, bit for bit") {
   const fp::Scenario s = fp::load_scenario(kAft, {});
   auto corners = fp::envelope_corners(s);
-  REQUIRE(corners.size() == 2);  // forward and aft CG at the one stated mass
+  REQUIRE(corners.size() == 4);  // aft and forward CG at the heaviest, then at the lightest stated mass
   CHECK(corners[0].cg == s.envelope.cg_aft);
   CHECK(corners[1].cg == s.envelope.cg_forward);
+  CHECK(corners[0].mass == s.envelope.mass_max);
+  CHECK(corners[2].mass == s.envelope.mass_min);
   fp::Corner slow;  // a trim speed below the 1 g stall speed cannot be trimmed: a failure row
   slow.label = "below the stall";
   slow.airspeed = 0.5 * fp::stall_speed(s.airplane, s.condition.altitude);
   corners.push_back(slow);
   const auto all = fp::run_matrix(s, corners, 2, false);
-  REQUIRE(all.size() == 3);
-  CHECK_FALSE(all[2].ok);
-  CHECK_FALSE(all[2].failure.empty());
-  for (std::size_t i = 0; i < 2; ++i) {
+  REQUIRE(all.size() == 5);
+  CHECK_FALSE(all[4].ok);
+  CHECK_FALSE(all[4].failure.empty());
+  for (std::size_t i = 0; i < 4; ++i) {
     CAPTURE(i);
     const fp::CornerResult one = fp::compute_corner(s, corners[i]);
     const fp::CornerResult& in = all[i];
@@ -234,17 +236,16 @@ TEST_CASE("floatpitch matrix: the envelope's corners and a case file, bad input 
   CAPTURE(r.text);
   REQUIRE(r.status == 0);
   const auto j = nlohmann::json::parse(r.text);
-  REQUIRE(j["corners"].size() == 2);
+  REQUIRE(j["corners"].size() == 4);
   CHECK(j.contains("caution"));
   for (const auto& c : j["corners"]) CHECK(c["ok"] == true);
-  // the bundled case: the envelope's 2 corners and a grid of 1 CG x 2 altitudes x 2 speeds
+  // the bundled case: the envelope's 4 corners and a grid of 1 CG x 2 altitudes x 2 speeds
   const Out c = ::shell(kExe + " matrix " + kAft + " --json --cases " + kSrc + "/scenarios/matrix/orvane_corners.toml");
   REQUIRE(c.status == 0);
   const auto cj = nlohmann::json::parse(c.text);
-  REQUIRE(cj["corners"].size() == 6);
-  // the first two are the envelope's, identical to the run without the case file
-  CHECK(cj["corners"][0] == j["corners"][0]);
-  CHECK(cj["corners"][1] == j["corners"][1]);
+  REQUIRE(cj["corners"].size() == 8);
+  // the first four are the envelope's, identical to the run without the case file
+  for (int k = 0; k < 4; ++k) CHECK(cj["corners"][k] == j["corners"][k]);
   const Out bad = ::shell(kExe + " matrix " + kAft + " --cases /nonexistent/case.toml");
   CHECK(bad.status == 2);
   CHECK(bad.text.find("/nonexistent/case.toml") != std::string::npos);
@@ -290,8 +291,8 @@ TEST_CASE("floatpitch report: the first page is the stated envelope, the criteri
   const auto th2 = first.find("<th>", head + 4);
   const std::string col1 = first.substr(th2 + 4, first.find("<br>", th2) - th2 - 4);
   CAPTURE(col1);
-  CHECK(worst.find("Worst of 2 corners: " + col1) != std::string::npos);
+  CHECK(worst.find("Worst of 4 corners: " + col1) != std::string::npos);
   // the corners' data file has a row a corner
   const std::string csv = slurp(out / "data/envelope_corners.csv");
-  CHECK(std::count(csv.begin(), csv.end(), '\n') == 3);
+  CHECK(std::count(csv.begin(), csv.end(), '\n') == 5);
 }
