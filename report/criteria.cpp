@@ -48,7 +48,8 @@ const Criterion kTable[] = {
      "(a), (b): www.pilotfriend.com/FARS/6/Sec.%2023.175.htm (Sec. 23.175 - Demonstration of static longitudinal "
      "stability); (c): www.faraim.org.s3-website-us-east-1.amazonaws.com/far/vol1/far-2014-title14-vol1-212.html "
      "(14 CFR Ch. I, 1-1-14 Edition, page 203)",
-     "the sign of the stick-force slope over the wider of 15 % of the trim speed and 40 kt about it (calibrated airspeed)"},
+     "the sign of the stick-force slope at trim at every corner, and over the wider of 15 % of the trim speed and 40 kt "
+     "about it at the analysed point (true airspeed, without the free-return extension)"},
     {"14 CFR 23.155", kPre64, CriterionKind::rule, "Elevator control force in maneuvers", kEcfr2014,
      "(a) The elevator control force needed to achieve the positive limit maneuvering load factor may not be less than: "
      "(1) For wheel controls, W/100 (where W is the maximum weight) or 20 pounds, whichever is greater, except that it "
