@@ -296,3 +296,26 @@ TEST_CASE("floatpitch report: the first page is the stated envelope, the criteri
   const std::string csv = slurp(out / "data/envelope_corners.csv");
   CHECK(std::count(csv.begin(), csv.end(), '\n') == 5);
 }
+
+TEST_CASE("matrix: the release verdicts hold when the integrator tolerance is ten times tighter and looser") {
+  // a numerical setting must not decide a physical answer (the project's rule): the release's
+  // load-factor range and verdict at the aft corner, with run.rel_tol / 10 and * 10
+  const fp::Scenario s = fp::load_scenario(kAft, {});
+  const auto corners = fp::envelope_corners(s);
+  const fp::CornerResult ref = fp::compute_corner(s, corners[0]);
+  REQUIRE(ref.ok);
+  for (const double f : {0.1, 10.0}) {
+    CAPTURE(f);
+    fp::Scenario t = s;
+    t.run.rel_tol = s.run.rel_tol * f;
+    const fp::CornerResult r = fp::compute_corner(t, corners[0]);
+    REQUIRE(r.ok);
+    for (const auto& [a, b] : {std::pair{&ref.release_up, &r.release_up}, std::pair{&ref.release_down, &r.release_down}}) {
+      CHECK(a->departed == b->departed);
+      CHECK(a->stall == b->stall);
+      CHECK(b->n_max == doctest::Approx(a->n_max).epsilon(1e-3));
+      CHECK(b->n_min == doctest::Approx(a->n_min).epsilon(1e-3));
+      CHECK(b->v_min == doctest::Approx(a->v_min).epsilon(1e-3));
+    }
+  }
+}
