@@ -88,6 +88,13 @@ int main(int argc, char** argv) {
   merge->add_option("--out", merge_o.out, "output directory (default: merged)");
   merge->add_option("--jobs", merge_o.jobs, "threads for the boundary refinement")->check(CLI::Range(1, 256));
 
+  fp::cmd::MatrixOpts matrix_o;
+  auto* matrix = app.add_subcommand("matrix", "conditions matrix: trim, margins, forces, modes held and free and a "
+                                              "release 15 % off trim at every corner, in parallel");
+  add_common(matrix, matrix_o.common, true);
+  matrix->add_option("--cases", matrix_o.cases, "case file listing the corners (default: the stated envelope's corners)");
+  matrix->add_option("--jobs", matrix_o.jobs, "threads (default: the number of cores)")->check(CLI::Range(1, 256));
+
   auto* keys = app.add_subcommand("keys", "print the scenario key reference (markdown)");
 
   fp::cmd::ReportOpts report_o;
@@ -107,6 +114,8 @@ int main(int argc, char** argv) {
       ->check(CLI::Range(0.0, 0.5));
   report->add_option("--min-force-per-g", report_o.min_force_per_g, "minimum stick force per g for the aft CG limit [N/g]")
       ->check(CLI::Range(0.0, 1000.0));
+  report->add_option("--basis", report_o.basis,
+                     "certification basis of the criteria: part23-pre64 (default), part23-amdt64 or cs23-pre5");
   report->add_flag("--pdf", report_o.pdf, "also print DIR/report.pdf with headless Chromium");
   report->add_option("--jobs", report_o.jobs, "threads (default: the number of cores)")->check(CLI::Range(1, 256));
 
@@ -130,5 +139,6 @@ int main(int argc, char** argv) {
   if (*merge) return fp::cmd::merge(merge_o);
   if (*keys) return fp::cmd::keys();
   if (*report) return fp::cmd::report(report_o);
+  if (*matrix) return fp::cmd::matrix(matrix_o);
   return fp::cmd::kBadInput;
 }

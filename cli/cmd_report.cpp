@@ -24,6 +24,7 @@ int report(const ReportOpts& o) {
     r.min_margin = o.min_margin;
     r.min_force_per_g = o.min_force_per_g;
     r.pdf = o.pdf;
+    r.basis = o.basis;
     r.jobs = default_jobs(o.jobs);
     const ReportData d = make_report(r);
     OutputSet out(o.out);

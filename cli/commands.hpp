@@ -99,7 +99,17 @@ struct ReportOpts {
   double min_force_per_g = kDefaultCriteria.min_force_per_g;  // [N/g] for the aft CG limit
   bool pdf = false;
   int jobs = 0;                     // 0: the number of cores
+  std::string basis = "part23-pre64";  // certification basis of the criteria (report/criteria.hpp)
 };
 int report(const ReportOpts& o);
+
+// `floatpitch matrix`: the conditions matrix (analysis/envelope.hpp) over the corners of a case
+// file (scenario/matrix_case.hpp), or over the stated envelope's corners when none is given.
+struct MatrixOpts {
+  Common common;
+  std::string cases;                // matrix case file ("" = the stated envelope's corners)
+  int jobs = 0;                     // 0: the number of cores
+};
+int matrix(const MatrixOpts& o);
 
 }  // namespace fp::cmd

@@ -3,6 +3,7 @@
 #include "atmosphere.hpp"
 
 #include <cmath>
+#include <stdexcept>
 
 #include "units.hpp"
 
@@ -34,5 +35,16 @@ AtmosphereState isa_at(double H) {
 }
 
 double geopotential_altitude(double z) { return isa::earth_radius * z / (isa::earth_radius + z); }
+
+double calibrated_airspeed(double tas, double z) {
+  const AtmosphereState a = isa_at(geopotential_altitude(z));
+  const double M = tas / a.sound_speed;
+  if (!(M < 1.0)) throw std::domain_error("calibrated_airspeed: supersonic (M >= 1)");
+  const double g = isa::gamma, e = g / (g - 1.0);
+  const double qc = a.pressure * (std::pow(1.0 + 0.5 * (g - 1.0) * M * M, e) - 1.0);
+  const AtmosphereState s0 = isa_at(0.0);
+  // at sea level: q_c = p0 ((1 + (gamma-1)/2 (V/a0)^2)^e - 1), solved for V
+  return s0.sound_speed * std::sqrt(2.0 / (g - 1.0) * (std::pow(qc / s0.pressure + 1.0, 1.0 / e) - 1.0));
+}
 
 }  // namespace fp

@@ -28,4 +28,11 @@ AtmosphereState isa_at(double H);
 // Geopotential altitude [m] from geometric altitude [m] (ISO 2533 eq. 8).
 double geopotential_altitude(double z_geometric);
 
+// Calibrated airspeed [m/s] from true airspeed [m/s] at geometric altitude z [m], ISA: the
+// impact pressure of isentropic subsonic flow at the altitude, q_c = p ((1 + (gamma-1)/2 M^2)^
+// (gamma/(gamma-1)) - 1), read back as the speed that gives the same q_c at sea-level ISA (the
+// calibration law of an airspeed indicator; the isentropic pitot relation, common practice).
+// Subsonic only: throws std::domain_error at M >= 1. Equals the true airspeed at sea level.
+double calibrated_airspeed(double tas, double z_geometric);
+
 }  // namespace fp

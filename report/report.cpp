@@ -467,6 +467,11 @@ ReportData make_report(const ReportOptions& o) {
                         "`floatpitch run --controls held` for the held airplane"};
   if (!(o.hinge_band >= 0.0 && o.hinge_band < 1.0)) throw option_error("--hinge-band", "expects 0 <= band < 100 (%)");
   if (o.samples < 2 || o.samples > 5000) throw option_error("--samples", "expects 2..5000 samples");
+  if (!find_basis(o.basis)) {
+    std::string allowed;
+    for (const auto& b : bases()) allowed += (allowed.empty() ? "" : ", ") + std::string(b.key);
+    throw option_error("--basis " + o.basis, "unknown certification basis; use one of " + allowed);
+  }
 
   // the one command that regenerates the report
   {
@@ -480,6 +485,7 @@ ReportData make_report(const ReportOptions& o) {
     if (o.seed != 1) c += " --seed " + std::to_string(o.seed);
     if (o.min_margin != kDefaultCriteria.min_static_margin) c += " --min-margin " + fmt_g(o.min_margin);
     if (o.min_force_per_g != kDefaultCriteria.min_force_per_g) c += " --min-force-per-g " + fmt_g(o.min_force_per_g);
+    if (o.basis != kDefaultBasis) c += " --basis " + shell_quote(o.basis);
     if (o.pdf) c += " --pdf";
     d.command = c;
   }
@@ -494,6 +500,7 @@ ReportData make_report(const ReportOptions& o) {
   {
     const auto st = wing_stall(s.airplane.wing.lift);
     d.cl_max = st.CLmax;
+    d.stall_alpha = st.alpha;
     d.stall_speed = stall_speed(s.airplane, s.condition.altitude);
   }
 
@@ -505,6 +512,10 @@ ReportData make_report(const ReportOptions& o) {
 
   // 4. dynamic
   d.modes = compute_modes(s);
+
+  // 0. the stated envelope's corners (the first page)
+  d.corners = run_matrix(s, envelope_corners(s), o.jobs, false);
+  d.analysed_in_envelope = within_envelope(s, s.airplane.mass.h_cg, s.airplane.mass.mass);
 
   report_cg_sweep(d, s, o);
   report_gusts(d, s, o);

@@ -25,6 +25,8 @@
 #include "run/run.hpp"
 #include "scenario/scenario.hpp"
 #include "analysis/sweep.hpp"
+#include "analysis/envelope.hpp"
+#include "report/criteria.hpp"
 
 namespace fp {
 
@@ -42,6 +44,7 @@ struct ReportOptions {
   double min_force_per_g = kDefaultCriteria.min_force_per_g;  // minimum stick force per g for the aft CG limit [N/g]
   bool pdf = false;
   int jobs = 2;                         // threads for the sweeps and the sampled runs
+  std::string basis = kDefaultBasis;    // the certification basis the criteria come from (report/criteria.hpp)
 };
 
 // One gust case: a name, the scenario it runs (the base scenario with these gusts), its runs.
@@ -105,6 +108,7 @@ struct ReportData {
   Trim trim_held, trim_free, trim_start;
   double stall_speed = 0;               // 1 g, at the condition's altitude [m/s TAS]
   double cl_max = 0;
+  double stall_alpha = 0;               // wing-body angle of attack at CLmax (model/trim wing_stall) [rad]
   Margins margins;
   PerGCurve force_per_g;  // stick force against load factor at the hands-off tab, to 3.5 g or where trim ends
   ModesResult modes;
@@ -113,6 +117,10 @@ struct ReportData {
   std::vector<GustCase> gusts;
   bool default_gust = false;            // the scenario had no disturbance: the report chose one
   UncertaintyResult uncertainty;
+  // the stated envelope's corners (analysis/envelope.hpp envelope_corners), each trimmed
+  // hands-off and computed by compute_corner: the first page's table
+  std::vector<CornerResult> corners;
+  bool analysed_in_envelope = true;     // the analysed CG and mass lie within the stated envelope
 };
 
 // Parse one --gusts choice and add its gusts to a copy of `base`:
@@ -136,6 +144,7 @@ struct Finding {
   std::string source;        // where the criterion is published
   std::string source_note;   // how the report holds the source: quoted, from memory, an option
   std::string comparison;    // the comparison, in words
+  std::vector<std::string> criteria;  // the rows of the criteria table it compares with (report/criteria.hpp)
 };
 std::vector<Finding> report_findings(const ReportData& d);
 

@@ -201,10 +201,185 @@ SlopeCheck slope_check(const Margins& m) {
 
 std::string kt(double mps, int dec = 0) { return number(units::to_kt(mps), dec) + " kt"; }
 
+// ---- the stated envelope's corners against the criteria (the first page) ----
+
+// One comparison at one corner: the figure, the line it is compared with, the margin to it.
+struct CornerCheck {
+  std::string column;     // what is compared (the column head)
+  std::string ids;        // the criteria table rows it compares with
+  std::string figure;     // HTML
+  std::string line;       // the criterion's line, HTML
+  std::string margin;     // HTML ("" when there is no number to compare with)
+  int side = 0;           // +1 on the criterion's side, -1 on the other side, 0 no comparison
+  CornerCheck(std::string c, std::string i) : column(std::move(c)), ids(std::move(i)) {}
+};
+
+std::string join_ids(const std::vector<std::string>& v) {
+  std::string s;
+  for (const auto& x : v) s += (s.empty() ? "" : ", ") + x;
+  return s;
+}
+
+std::string lbf_n(double N, int dec = 1) { return number(N / units::lbf, dec) + " lbf (" + number(N, 0) + " N)"; }
+
+// The release after the stick is let go 15 % off trim, in words; a departure that reached the stall
+// is called a stall and marked beyond the model's validity.
+std::string release_words(const Release& r) {
+  const std::string head = std::string(r.offset > 0 ? "+" : "\u2212") + number(100 * std::abs(r.offset), 0) + " %: ";
+  if (!r.failure.empty()) return head + "not run (" + esc(r.failure) + ")";
+  std::string s = head + "a " + (r.force < 0 ? "push" : "pull") + " of " + number(std::abs(r.force) / units::lbf, 1) +
+                  " lbf released, ";
+  if (r.stall)
+    s += "<b>stall</b>" + (r.departed ? " at " + number(r.time, 1) + " s" : std::string()) +
+         " (beyond the model's validity)";
+  else if (r.departed)
+    s += "<b>departs</b> at " + number(r.time, 1) + " s (" + esc(r.reason) + ")";
+  else
+    s += "n " + number(r.n_min, 2) + " to " + number(r.n_max, 2) + ", no departure in " + number(r.seconds, 0) + " s";
+  return s;
+}
+
+std::vector<CornerCheck> corner_checks(const ReportData& d, const CornerResult& c) {
+  std::vector<CornerCheck> out;
+  const std::string& basis = d.options.basis;
+  const Margins& m = c.margins;
+  {
+    CornerCheck k{"stick-free static margin", join_ids(criteria_ids(basis, Topic::static_stability))};
+    k.figure = plus_pct(m.margin_free) + " % MAC";
+    k.line = "&gt; 0 (stable)";
+    k.margin = plus_pct(m.margin_free) + " % MAC";
+    k.side = m.margin_free > 0 ? 1 : -1;
+    out.push_back(k);
+  }
+  {
+    CornerCheck k{"stick-force slope at trim, tab fixed", join_ids(criteria_ids(basis, Topic::force_slope))};
+    const double g = m.force_gradient * units::kt;  // N per kt of true airspeed
+    k.figure = plus(g / units::lbf, 2) + " lbf/kt (" + plus(g, 2) + " N/kt)";
+    k.line = "&lt; 0 (a pull below trim)";
+    k.margin = plus(-g / units::lbf, 2) + " lbf/kt";
+    k.side = g < 0 ? 1 : -1;
+    out.push_back(k);
+  }
+  {
+    CornerCheck k{"free-return band with friction", join_ids(criteria_ids(basis, Topic::free_return))};
+    const double Ff = d.scenario.airplane.circuit.friction;
+    k.line = "within 10 % of trim (figure from memory: text not retrieved)";
+    if (Ff <= 0) {
+      k.figure = "no friction in the circuit";
+    } else if (std::isfinite(m.free_return_low)) {
+      const double w = std::max(m.trim_speed - m.free_return_low, m.free_return_high - m.trim_speed) / m.trim_speed;
+      k.figure = "\u00b1" + number(100 * w, 1) + " % of trim";
+      k.margin = plus(100 * (0.10 - w), 1) + " % of trim";
+      k.side = w <= 0.10 ? 1 : -1;
+    } else {
+      k.figure = "no return (slope not stable)";
+      k.side = -1;
+    }
+    out.push_back(k);
+  }
+  {
+    CornerCheck k{"stick force at n = " + number(c.limit_load_factor, 1), join_ids(criteria_ids(basis, Topic::maneuver_force))};
+    k.figure = lbf_n(c.force_at_limit);
+    if (basis == kDefaultBasis) {
+      const double W_lb = (d.scenario.envelope.mass_max > 0 ? d.scenario.envelope.mass_max : d.scenario.airplane.mass.mass) /
+                          0.45359237;
+      const double need = stick_force_minimum_23_155_lbf(W_lb) * units::lbf;
+      k.line = "\u2265 " + lbf_n(need) + " (stick, W " + number(W_lb, 0) + " lb)";
+      k.margin = plus((c.force_at_limit - need) / units::lbf, 1) + " lbf";
+      k.side = c.force_at_limit >= need ? 1 : -1;
+    } else {
+      const double need = d.options.min_force_per_g * (c.limit_load_factor - 1.0);
+      k.line = "\u2265 " + lbf_n(need) + " (option --min-force-per-g; the basis states no figure)";
+      k.margin = plus((c.force_at_limit - need) / units::lbf, 1) + " lbf";
+      k.side = c.force_at_limit >= need ? 1 : -1;
+    }
+    out.push_back(k);
+  }
+  {
+    CornerCheck k{"short-period damping \u03b6 held / free", join_ids(criteria_ids(basis, Topic::short_period))};
+    auto z = [](bool has, const Mode& md) { return has ? number(md.damping, 2) : std::string("aperiodic"); };
+    k.figure = z(c.has_sp_held, c.sp_held) + " / " + z(c.has_sp_free, c.sp_free);
+    k.line = "\u2265 0.35 (MIL-F-8785C level 1, guidance, from memory)";
+    if (c.has_sp_held && c.has_sp_free) {
+      const double lo = std::min(c.sp_held.damping, c.sp_free.damping);
+      k.margin = plus(lo - 0.35, 2);
+      k.side = lo >= 0.35 ? 1 : -1;
+    }
+    out.push_back(k);
+  }
+  {
+    CornerCheck k{"release \u00b115 % off trim, stick let go", join_ids(criteria_ids(basis, Topic::release))};
+    k.figure = release_words(c.release_up) + "<br>" + release_words(c.release_down);
+    k.line = "no dangerous response (no number)";
+    const bool bad = c.release_up.departed || c.release_up.stall || c.release_down.departed || c.release_down.stall;
+    k.side = bad ? -1 : 0;
+    out.push_back(k);
+  }
+  {
+    CornerCheck k{"deciding root, stick free", join_ids(criteria_ids(basis, Topic::divergence))};
+    const Mode& w = c.worst_free;
+    const double re = w.root.real();
+    k.figure = plus(re, 4) + " 1/s (" + esc(w.name) + (re > 0 ? ", doubles in " + number(w.time_to_double, 1) + " s" : std::string()) + ")";
+    k.line = "if unstable, doubling in \u2265 55 s (MIL-F-8785C phugoid level 3, guidance, from memory)";
+    if (re > 0) {
+      k.margin = plus(w.time_to_double - 55.0, 1) + " s";
+      k.side = w.time_to_double >= 55.0 ? 1 : -1;
+    } else {
+      k.margin = "stable";
+      k.side = 1;
+    }
+    out.push_back(k);
+  }
+  return out;
+}
+
+int outside_count(const std::vector<CornerCheck>& ks) {
+  int n = 0;
+  for (const auto& k : ks) n += k.side < 0;
+  return n;
+}
+
+// The corners, worst first: a corner that could not be computed first (nothing is known of it),
+// then by the number of comparisons on the wrong side of their line, then by the stick-free
+// static margin, smallest first. The one ordering of the first page's table and of its finding.
+std::vector<const CornerResult*> corners_worst_first(const ReportData& d) {
+  std::vector<std::pair<int, const CornerResult*>> v;
+  for (const auto& c : d.corners) v.push_back({c.ok ? outside_count(corner_checks(d, c)) : 1000, &c});
+  std::stable_sort(v.begin(), v.end(), [](const auto& a, const auto& b) {
+    if (a.first != b.first) return a.first > b.first;
+    const double ma = a.second->ok ? a.second->margins.margin_free : -1e9;
+    const double mb = b.second->ok ? b.second->margins.margin_free : -1e9;
+    return ma < mb;
+  });
+  std::vector<const CornerResult*> out;
+  for (const auto& x : v) out.push_back(x.second);
+  return out;
+}
+
+
 }  // namespace
 
 // ---------------------------------------------------------------------------------------------
 // Findings
+
+namespace {
+// The rows of the criteria table a finding compares with, its source and how the table holds it.
+void cite(Finding& x, const ReportData& d, Topic t) {
+  x.criteria = criteria_ids(d.options.basis, t);
+  x.source.clear();
+  x.source_note.clear();
+  for (const auto& id : x.criteria) {
+    const Criterion* c = find_criterion(id);
+    if (!c) continue;  // never: criteria_ids returns rows of the table (a test checks it)
+    x.source += (x.source.empty() ? "" : "; ") + id + " (" + c->document + ")";
+    const char* how = c->status == TextStatus::verbatim           ? "quoted in the criteria table"
+                      : c->status == TextStatus::verbatim_partial ? "quoted in part in the criteria table"
+                      : c->status == TextStatus::not_available    ? "text not retrieved: see the criteria table"
+                                                                  : "not a published criterion";
+    x.source_note += (x.source_note.empty() ? "" : "; ") + id + ": " + how;
+  }
+}
+}  // namespace
 
 // Findings 1-3: static stability, the stick-force slope, the free-return band.
 void findings_static(std::vector<Finding>& out, const ReportData& d, const Facts& f) {
@@ -218,11 +393,9 @@ void findings_static(std::vector<Finding>& out, const ReportData& d, const Facts
                  " % MAC with the stick fixed and " + plus_pct(m.margin_free) +
                  " % MAC with the stick free (model; closed form " + plus_pct(m.cf.np_fixed - cg) + " and " +
                  plus_pct(m.cf.np_free - cg) + " % MAC).";
-    x.criterion = "Positive static stability with the controls free: a pull needed to hold speeds below trim and a "
-                  "push above. The rule states no margin in % MAC.";
-    x.source = "14 CFR 23.173 (before amendment 64) and 23.175; 23.2145 in the performance-based Part 23 "
-               "(\"stable control force feedback\")";
-    x.source_note = "23.173 paraphrased from memory; check the current text";
+    x.criterion = "Static longitudinal stability with the controls free, as the basis's sections in the criteria table "
+                  "ask; they state no margin in % MAC. Read here as a positive stick-free static margin.";
+    cite(x, d, Topic::static_stability);
     x.comparison = m.margin_free < 0
                        ? "The stick-free margin is negative: with the stick free this CG lies aft of the neutral "
                          "point, the opposite of the stable condition that the wording describes."
@@ -241,9 +414,9 @@ void findings_static(std::vector<Finding>& out, const ReportData& d, const Facts
                  std::to_string(c.stable) + " of " + std::to_string(c.stable + c.unstable) +
                  " curve segments have a stable slope.";
     x.criterion = "A stable slope of stick force against speed over the greater of \u00b115 % of the trim speed or "
-                  "\u00b140 kt (" + kt(c.lo) + " to " + kt(c.hi) + " here, true airspeed).";
-    x.source = "14 CFR 23.175(b)";
-    x.source_note = "published wording, summarised; the rule states no force gradient for light airplanes";
+                  "\u00b140 kt (" + kt(c.lo) + " to " + kt(c.hi) + " here, true airspeed), the range of 14 CFR "
+                  "23.175(b)(1) quoted in the criteria table (without its free-return extension).";
+    cite(x, d, Topic::force_slope);
     x.comparison = c.unstable == 0 ? "The modelled slope is stable over the whole range covered."
                                    : "The modelled slope is unstable (a push needed below trim) over part or all of "
                                      "the range: the opposite sign to the slope the rule asks for.";
@@ -268,9 +441,9 @@ void findings_static(std::vector<Finding>& out, const ReportData& d, const Facts
                           : "No friction in the circuit (circuit.friction = 0): no free-return band to compare.";
       x.comparison = Ff > 0 ? "The speed does not return towards trim at all: outside any band." : "Not applicable.";
     }
-    x.criterion = "On slow release of the stick the speed returns to within 10 % of the trim speed (7.5 % in cruise).";
-    x.source = "14 CFR 23.173(b) (before amendment 64)";
-    x.source_note = "from memory; check the current text";
+    x.criterion = "On slow release of the stick the speed returns to within 10 % of the trim speed: a figure from "
+                  "memory of the free-return paragraph, whose text could not be retrieved (see the criteria table).";
+    cite(x, d, Topic::free_return);
     out.push_back(x);
   }
 }
@@ -288,8 +461,7 @@ void findings_dynamic(std::vector<Finding>& out, const ReportData& d, const Fact
                  " 1/s free (" + f.free_worst->name + ", " + time_words(*f.free_worst) + ").";
     x.criterion = "For scale: the fastest phugoid divergence that MIL-F-8785C admits, even at level 3, doubles its "
                   "amplitude in 55 s. A military specification's level for a different mode, not a civil rule.";
-    x.source = "MIL-F-8785C, phugoid stability (level 3)";
-    x.source_note = "from memory; check the document";
+    cite(x, d, Topic::divergence);
     if (f.free_worst->root.real() > 0)
       x.comparison = "Hands-off, a disturbance doubles in " + number(f.free_worst->time_to_double, 1) + " s, " +
                      (f.free_worst->time_to_double < 55 ? "faster than" : "slower than") + " that 55 s line.";
@@ -311,12 +483,9 @@ void findings_dynamic(std::vector<Finding>& out, const ReportData& d, const Fact
                                        (f.sp_free->cycles_to_tenth > 0 ? number(f.sp_free->cycles_to_tenth, 2) + " cycles to one tenth" : "no cycle") + ")"
                                  : "free: no oscillatory short-period mode (the pitch motion has become aperiodic)";
     x.measured = "At CG " + pct(cg) + " % MAC: " + held + "; " + free + ".";
-    x.criterion = "14 CFR 23.181(a): short-period oscillations \"must be heavily damped with the primary controls (1) "
-                  "Free; and (2) In a fixed position\", no number. For a number: MIL-F-8785C category A and C, level 1, "
-                  "\u03b6 from 0.35 to 1.30 (about 1 cycle to one tenth at 0.35).";
-    x.source = "14 CFR 23.181(a); MIL-F-8785C short-period damping (class I airplanes)";
-    x.source_note = "23.181(a) quoted; the MIL-F-8785C level-1 range for categories A and C is published; a military "
-                    "specification's levels, not civil rules";
+    x.criterion = "The basis's short-period paragraph (see the criteria table) states no number. For a number: "
+                  "MIL-F-8785C category A and C, level 1, \u03b6 from 0.35 to 1.30 (from memory; guidance, not a civil rule).";
+    cite(x, d, Topic::short_period);
     auto in = [](const Mode* md) { return md && md->damping >= 0.35 && md->damping <= 1.30; };
     std::string c;
     c += f.sp_held ? std::string("Held: ") + (in(f.sp_held) ? "inside" : "outside") + " the 0.35 to 1.30 range. "
@@ -334,11 +503,24 @@ void findings_dynamic(std::vector<Finding>& out, const ReportData& d, const Fact
                  number(m.force_per_g / units::lbf, 1) + " lbf/g) with everything included, " +
                  number(m.force_per_g_aero, 1) + " N/g from the hinge-moment aerodynamics alone (closed form " +
                  number(m.cf.force_per_g, 1) + " N/g).";
+    const double nl = d.scenario.envelope.limit_load_factor;
+    const double at_limit = m.force_per_g * (nl - 1.0);
+    x.measured += " At the limit load factor " + number(nl, 1) + " (envelope.limit_load_factor) that is " +
+                  number(at_limit / units::lbf, 1) + " lbf (" + number(at_limit, 0) + " N), linear in n from the slope at trim.";
     x.criterion = "The minimum set for the aft CG limit in this report: " + number(d.options.min_force_per_g, 1) +
                   " N/g (" + number(d.options.min_force_per_g / units::lbf, 1) + " lbf/g), an option of the tool.";
-    x.source = "none: a design value chosen by the user (--min-force-per-g); compare it with the criterion you apply";
-    x.source_note = "project option, not a published criterion";
     x.comparison = m.force_per_g >= d.options.min_force_per_g ? "Above the minimum set." : "Below the minimum set.";
+    if (d.options.basis == kDefaultBasis) {
+      const double W_lb = (d.scenario.envelope.mass_max > 0 ? d.scenario.envelope.mass_max : d.scenario.airplane.mass.mass) /
+                          0.45359237;
+      const double need = stick_force_minimum_23_155_lbf(W_lb) * units::lbf;
+      x.criterion += " And 14 CFR 23.155(a)(2), quoted in the criteria table: for stick controls W/140 or 15 pounds, "
+                     "whichever is greater, need not exceed 35 pounds; here W = " + number(W_lb, 0) + " lb gives " +
+                     number(need / units::lbf, 1) + " lbf (" + number(need, 0) + " N).";
+      x.comparison += std::string(" At the limit load factor the force is ") + (at_limit >= need ? "above" : "below") +
+                      " the 23.155 line by " + number(std::abs(at_limit - need) / units::lbf, 1) + " lbf.";
+    }
+    cite(x, d, Topic::maneuver_force);
     out.push_back(x);
   }
 }
@@ -356,8 +538,7 @@ void findings_limits(std::vector<Finding>& out, const ReportData& d, const Facts
                  pct(m.envelope_forward) + " to " + pct(m.envelope_aft) + " % MAC.";
     x.criterion = "The stated envelope should lie inside the limits; the aft limit here uses a minimum stick-free static "
                   "margin of " + pct(d.options.min_margin) + " % MAC and the stick force per g above.";
-    x.source = "none: the margins are options of the tool (--min-margin, --min-force-per-g)";
-    x.source_note = "project options, not published criteria";
+    cite(x, d, Topic::cg_limits);
     const bool fwd_ok = !std::isfinite(m.limits.forward.cg) || m.envelope_forward >= m.limits.forward.cg;
     const bool aft_ok = std::isfinite(m.limits.aft.cg) && m.envelope_aft <= m.limits.aft.cg;
     x.comparison = std::string(fwd_ok ? "Forward end inside" : "Forward end outside") + " (" +
@@ -381,8 +562,7 @@ void findings_limits(std::vector<Finding>& out, const ReportData& d, const Facts
                  " % MAC from the closed form with the constant hinge moments (" + pct(b.closed_form_aerodynamic, 2) +
                  " % MAC without). With the stick held: " + pct(d.cg_sweep.held.eigenvalue, 2) + " % MAC (eigenvalue).";
     x.criterion = "The stated aft CG limit, " + pct(m.envelope_aft) + " % MAC (the airplane's own data).";
-    x.source = "the scenario's [envelope] (manufacturer's data)";
-    x.source_note = "input data";
+    cite(x, d, Topic::boundary);
     x.comparison = std::isfinite(b.eigenvalue)
                        ? "The boundary lies " + number(100 * std::abs(b.eigenvalue - m.envelope_aft), 1) + " % MAC " +
                              (b.eigenvalue >= m.envelope_aft ? "aft of" : "forward of") + " the stated aft limit."
@@ -401,25 +581,76 @@ void findings_limits(std::vector<Finding>& out, const ReportData& d, const Facts
       x.measured = "Over " + std::to_string(b.n) + " samples (" + (u.default_band ? "Ch_alpha and Ch_delta \u00b1" +
                    number(100 * d.options.hinge_band, 0) + " %, uniform" : std::string("the bands given")) +
                    ") the stick-free neutral point lies between " + pct(b.min) + " and " + pct(b.max) +
-                   " % MAC (5 to 95 %: " + pct(b.p5) + " to " + pct(b.p95) + "). At the stated aft limit the smallest "
-                   "stick-free margin is " + plus_pct(b.min - m.envelope_aft) + " % MAC.";
+                   " % MAC (5 to 95 %: " + pct(b.p5) + " to " + pct(b.p95) + ").";
+      // the worst case is the worst of the samples and of the band's corners (the table of section 7),
+      // so that the finding and the table give the same figure
+      double worst = b.min;
+      bool from_corner = false;
+      if (u.has_corners)
+        for (const auto& p : u.corners.points)
+          if (p.ok && p.np_free < worst) {
+            worst = p.np_free;
+            from_corner = true;
+          }
+      x.measured += " At the stated aft limit the smallest stick-free margin is " + plus_pct(worst - m.envelope_aft, 2) +
+                    " % MAC (" + (from_corner ? "at a corner of the band, section 7's table" : "among the samples") + ").";
       x.criterion = "Zero stick-free margin, and the minimum of " + pct(d.options.min_margin) +
                     " % MAC used for the aft limit (an option of the tool).";
-      x.source = "none: static-margin minimums are design choices (--min-margin)";
-      x.source_note = "project option";
-      x.comparison = b.min - m.envelope_aft >= d.options.min_margin
-                         ? "Every sample keeps at least the minimum margin at the stated aft limit."
-                         : b.min - m.envelope_aft >= 0
-                               ? "Some samples fall below the minimum margin at the stated aft limit, none below zero."
-                               : "Some samples put the stick-free neutral point forward of the stated aft limit.";
+      cite(x, d, Topic::uncertainty);
+      x.comparison = worst - m.envelope_aft >= d.options.min_margin
+                         ? "Every sample and corner keeps at least the minimum margin at the stated aft limit."
+                         : worst - m.envelope_aft >= 0
+                               ? "Part of the band falls below the minimum margin at the stated aft limit, none below zero."
+                               : "Part of the band puts the stick-free neutral point forward of the stated aft limit.";
       out.push_back(x);
     }
   }
 }
 
+// Finding 0: the stated envelope's corners, the worst first (the first page's table).
+void findings_envelope(std::vector<Finding>& out, const ReportData& d) {
+  const auto order = corners_worst_first(d);
+  if (order.empty()) return;
+  const CornerResult& w = *order.front();
+  Finding x;
+  x.topic = "The stated envelope's corners";
+  std::string where = d.analysed_in_envelope ? "The analysed point lies within the stated envelope. "
+                                             : "The analysed point (CG " + pct(d.scenario.airplane.mass.h_cg) + " % MAC, " +
+                                                   number(d.scenario.airplane.mass.mass, 0) +
+                                                   " kg) lies OUTSIDE the stated envelope. ";
+  if (!w.ok) {
+    x.measured = where + "The corner " + w.corner.label + " could not be computed: " + w.failure + ".";
+    x.comparison = "Nothing is known of that corner: it cannot be compared.";
+  } else {
+    const auto ks = corner_checks(d, w);
+    std::string outside;
+    for (const auto& k : ks)
+      if (k.side < 0) outside += (outside.empty() ? "" : "; ") + k.column + " (" + k.ids + ")";
+    x.measured = where + "Worst of " + std::to_string(order.size()) + " corners: " + w.corner.label + " (CG " + pct(w.cg) +
+                 " % MAC, " + number(w.mass, 0) + " kg), stick-free static margin " + plus_pct(w.margins.margin_free) +
+                 " % MAC, with " + std::to_string(outside_count(ks)) + " comparison(s) on the other side of their line" +
+                 (outside.empty() ? "." : ": " + outside + ".");
+    x.comparison = outside.empty() ? "Every comparison at every corner is on the side of its line, where it has one."
+                                   : "At that corner the figures listed are on the other side of the lines they are "
+                                     "compared with (first page, the corners table).";
+  }
+  x.criterion = "Each criterion of the first page's table at each corner of the stated envelope.";
+  std::vector<std::string> ids;
+  for (const Topic t : {Topic::static_stability, Topic::force_slope, Topic::free_return, Topic::maneuver_force,
+                        Topic::short_period, Topic::release, Topic::divergence, Topic::boundary})
+    for (const auto& id : criteria_ids(d.options.basis, t))
+      if (std::find(ids.begin(), ids.end(), id) == ids.end()) ids.push_back(id);
+  cite(x, d, Topic::boundary);
+  x.criteria = ids;
+  x.source = "the criteria table (section 9): " + join_ids(ids);
+  x.source_note = "each row says whether its text is quoted";
+  out.push_back(x);
+}
+
 std::vector<Finding> report_findings(const ReportData& d) {
   std::vector<Finding> out;
   const Facts f = facts_of(d);
+  findings_envelope(out, d);
   findings_static(out, d, f);
   findings_dynamic(out, d, f);
   findings_limits(out, d, f);
@@ -837,6 +1068,52 @@ std::vector<DataFile> data_files(const ReportData& d) {
     f.push_back({"data/inputs.json", "input files with their SHA-256, tool version, options, the regenerating command",
                  dump(j)});
   }
+  {
+    std::string c =
+        "corner,cg,mass_kg,in_envelope,computed,failure,tas_kt,cas_kt,static_margin_fixed,static_margin_free,"
+        "force_gradient_N_per_kt,free_return_low_kt,free_return_high_kt,force_per_g_N,limit_load_factor,force_at_limit_N,"
+        "sp_damping_held,sp_damping_free,deciding_root_free_per_s,deciding_mode_free,";
+    for (const char* r : {"release_up", "release_down"})
+      c += std::string(r) + "_force_N," + r + "_departed," + r + "_stall," + r + "_time_s," + r + "_n_min," + r +
+           "_n_max," + r + "_v_min_kt," + r + "_v_max_kt,";
+    c.back() = '\n';
+    auto q = [](const std::string& x) {
+      std::string o = "\"";
+      for (char ch : x) o += ch == '"' ? std::string("\"\"") : std::string(1, ch);
+      return o + "\"";
+    };
+    for (const auto& x : d.corners) {
+      const Margins& m = x.margins;
+      c += q(x.corner.label) + "," + csv_num(x.cg) + "," + csv_num(x.mass) + "," + (x.in_envelope ? "1" : "0") + "," +
+           (x.ok ? "1" : "0") + "," + q(x.failure) + "," + csv_num(units::to_kt(x.airspeed)) + ",";
+      if (!x.ok) {
+        c += std::string(28, ',') + "\n";  // the 29 columns after tas_kt, empty
+        continue;
+      }
+      c += csv_num(units::to_kt(x.calibrated)) + "," + csv_num(m.margin_fixed) + "," + csv_num(m.margin_free) + "," +
+           csv_num(m.force_gradient * units::kt) + "," + csv_num(units::to_kt(m.free_return_low)) + "," +
+           csv_num(units::to_kt(m.free_return_high)) + "," + csv_num(m.force_per_g) + "," + csv_num(x.limit_load_factor) +
+           "," + csv_num(x.force_at_limit) + "," + (x.has_sp_held ? csv_num(x.sp_held.damping) : "") + "," +
+           (x.has_sp_free ? csv_num(x.sp_free.damping) : "") + "," + csv_num(x.worst_free.root.real()) + "," +
+           q(x.worst_free.name) + ",";
+      for (const Release* r : {&x.release_up, &x.release_down})
+        c += csv_num(r->force) + "," + (r->departed ? "1" : "0") + "," + (r->stall ? "1" : "0") + "," + csv_num(r->time) +
+             "," + csv_num(r->n_min) + "," + csv_num(r->n_max) + "," + csv_num(units::to_kt(r->v_min)) + "," +
+             csv_num(units::to_kt(r->v_max)) + ",";
+      c.back() = '\n';
+    }
+    f.push_back({"data/envelope_corners.csv", "first page: the stated envelope's corners, each trimmed hands-off", c});
+    json cj = json::array();
+    for (const Criterion* x : criteria_for(d.options.basis))
+      cj.push_back({{"id", x->id}, {"title", x->title}, {"document", x->document}, {"text", x->text},
+                    {"text_status", x->status == TextStatus::verbatim           ? "verbatim"
+                                    : x->status == TextStatus::verbatim_partial ? "verbatim, partial"
+                                    : x->status == TextStatus::not_available    ? "not available"
+                                                                                : "not applicable"},
+                    {"text_note", x->text_note}, {"source", x->source}, {"compared", x->compared}});
+    f.push_back({"data/criteria.json", "section 9: the criteria table of the basis",
+                 dump(json{{"basis", d.options.basis}, {"criteria", cj}, {"caution", kCaution}})});
+  }
   f.push_back({"data/trim.json", "section 2: trims held, hands-off, and the start of the runs",
                dump(json{{"held", trim_json(d.trim_held)}, {"hands_off", trim_json(d.trim_free)},
                          {"run_start", trim_json(d.trim_start)}})});
@@ -918,7 +1195,7 @@ std::vector<DataFile> data_files(const ReportData& d) {
     json j = json::array();
     for (const auto& x : report_findings(d))
       j.push_back({{"topic", x.topic}, {"measured", x.measured}, {"criterion", x.criterion}, {"source", x.source},
-                   {"source_note", x.source_note}, {"comparison", x.comparison}});
+                   {"source_note", x.source_note}, {"comparison", x.comparison}, {"criteria", x.criteria}});
     f.push_back({"data/findings.json", "section 8: the findings", dump(json{{"findings", j}, {"caution", kCaution}})});
   }
   return f;
@@ -964,6 +1241,98 @@ struct PageCtx {
   [[maybe_unused]] int& sweep_root_fig = (c).sweep_root_fig;     \
   std::string& h = pg.html
 
+// Section: the stated envelope's corners against the criteria (the first page).
+void page_envelope(Page& pg, PageCtx& c) {
+  FP_PAGE_NAMES(c);
+  h += "<h2 id=\"envelope\">The stated envelope against the criteria</h2>\n";
+  const Basis* basis = find_basis(d.options.basis);
+  if (!d.analysed_in_envelope) {
+    const double m0 = a.mass.mass;
+    const double lo = s.envelope.mass_min > 0 ? s.envelope.mass_min : m0, hi = s.envelope.mass_max > 0 ? s.envelope.mass_max : m0;
+    h += "<div class=\"verdict\"><b>The analysed point lies outside the stated envelope</b>: CG " + pct(cg) + " % MAC, " +
+         number(m0, 0) + " kg, against the stated CG limits " + pct(s.envelope.cg_forward) + " to " +
+         pct(s.envelope.cg_aft) + " % MAC and " +
+         (lo == hi ? "the one mass of the case (no mass range stated)" : "masses " + number(lo, 0) + " to " + number(hi, 0) + " kg") +
+         ". Sections 1 to 8 analyse that point; the table below is the stated envelope's.</div>\n";
+  }
+  const auto order = corners_worst_first(d);
+  const CornerResult* first_ok = nullptr;
+  for (const auto* x : order)
+    if (x->ok) {
+      first_ok = x;
+      break;
+    }
+  h += "<p>Certification basis: <b>" + esc(basis ? basis->name : d.options.basis) + "</b> (option --basis). Each corner "
+       "is trimmed hands-off at " + number(units::to_ft(s.condition.altitude), 0) + " ft" +
+       (first_ok ? ", " + kt(first_ok->calibrated) + " CAS (" + kt(first_ok->airspeed) + " TAS)" : std::string()) +
+       ", and the corners are ordered worst first: the most comparisons on the other side of their line, then the "
+       "smallest stick-free margin. Each cell gives the figure and, below it, the margin to the line. The lines and "
+       "the rows of the criteria table (section 9) they come from are in the first column; a rule whose text could "
+       "not be retrieved is named but not quoted there.</p>\n";
+  Table t;
+  t.cls = "compact";
+  t.head = {"criterion, line (criteria table rows)"};
+  for (const auto* x : order)
+    t.head.push_back(esc(x->corner.label) + "<br><span class=\"muted\">CG " + pct(x->cg) + " % MAC, " + number(x->mass, 0) +
+                     " kg" + (x->in_envelope ? "" : ", outside") + "</span>");
+  if (!first_ok) {
+    std::vector<std::string> r = {"could not be computed"};
+    for (const auto* x : order) r.push_back(esc(x->failure));
+    t.rows.push_back(r);
+  } else {
+    const auto lines = corner_checks(d, *first_ok);
+    std::vector<std::vector<CornerCheck>> checks;
+    for (const auto* x : order) checks.push_back(x->ok ? corner_checks(d, *x) : std::vector<CornerCheck>{});
+    for (std::size_t i = 0; i < lines.size(); ++i) {
+      std::vector<std::string> r = {"<b>" + esc(lines[i].column) + "</b><br><span class=\"muted\">" + lines[i].line + "; " +
+                                    esc(lines[i].ids) + "</span>"};
+      for (std::size_t j = 0; j < order.size(); ++j) {
+        if (!order[j]->ok) {
+          r.push_back(i == 0 ? "could not be computed: " + esc(order[j]->failure) : std::string("\u2013"));
+          continue;
+        }
+        const CornerCheck& k = checks[j][i];
+        std::string cell = k.side < 0 ? "<b>" + k.figure + "</b>" : k.figure;
+        if (!k.margin.empty()) cell += "<br><span class=\"muted\">margin " + k.margin + "</span>";
+        if (k.side < 0) cell += "<br><b>other side of the line</b>";
+        r.push_back(cell);
+      }
+      t.rows.push_back(r);
+    }
+  }
+  h += table_html(t);
+  h += "<p class=\"note\">Stick force per g and at the limit load factor from the steady pull-up at the trim speed (the "
+       "force at n is the slope at trim times n \u2212 1); the release holds the speed 15 % above or below trim with the "
+       "tab at the hands-off setting and the throttle re-trimmed for level flight, then lets the stick go and runs " +
+       number(release_seconds, 0) + " s. A response that reaches the stall is called a stall and lies beyond the "
+       "model's validity. Data: <code>data/envelope_corners.csv</code>.</p>\n";
+}
+
+// The criteria table of the basis (section 9), with the texts quoted where a copy was found.
+std::string criteria_table_html(const ReportData& d) {
+  std::string o = "<table id=\"criteria\" class=\"compact\">\n<thead><tr><th>row</th><th>kind, document</th><th>text "
+                  "(verbatim where shown)</th><th>source of the text</th></tr></thead>\n<tbody>\n";
+  for (const Criterion* c : criteria_for(d.options.basis)) {
+    const char* kind = c->kind == CriterionKind::rule       ? "rule of the basis"
+                       : c->kind == CriterionKind::guidance ? "guidance (not a civil rule)"
+                       : c->kind == CriterionKind::option   ? "option of this tool (not a criterion)"
+                                                            : "input data (not a criterion)";
+    std::string text;
+    if (c->status == TextStatus::verbatim || c->status == TextStatus::verbatim_partial)
+      text = "<q>" + esc(c->text) + "</q>";
+    else if (c->status == TextStatus::not_available)
+      text = "<i>Text not available</i>";
+    else
+      text = "<i>No published text</i>";
+    if (*c->text_note) text += "<br><span class=\"muted\">" + esc(c->text_note) + "</span>";
+    text += "<br><span class=\"muted\">Compared here: " + esc(c->compared) + "</span>";
+    o += "<tr><td><b>" + esc(c->id) + "</b><br>" + esc(c->title) + "</td><td>" + kind + "<br>" + esc(c->document) +
+         "</td><td>" + text + "</td><td>" + (*c->source ? "<code>" + esc(c->source) + "</code>" : std::string("\u2013")) +
+         "</td></tr>\n";
+  }
+  return o + "</tbody></table>\n";
+}
+
 // Section: title and first-page summary.
 void page_summary(Page& pg, PageCtx& c) {
   FP_PAGE_NAMES(c);
@@ -976,7 +1345,8 @@ void page_summary(Page& pg, PageCtx& c) {
   h += "</header>\n";
   h += "<div class=\"caution\"><strong>Caution.</strong> " + std::string(kCaution) + "</div>\n";
 
-  h += "<h2 id=\"summary\">At a glance</h2>\n";
+  page_envelope(pg, c);
+  h += "<h2 id=\"summary\">At a glance: the analysed point</h2>\n";
   {
     std::string v = "At CG " + pct(cg) + " % MAC and " + kt(s.condition.airspeed) + " the airplane is <b>" +
                     std::string(f.held_stable ? "stable with the stick held" : "unstable with the stick held") +
@@ -1003,9 +1373,16 @@ void page_summary(Page& pg, PageCtx& c) {
                         pct(d.cg_sweep.free.eigenvalue, 2)});
     if (f.g1) {
       const RunOutcome& o = *f.g1->outcome;
-      auto outc = [](const CaseResult* c) {
+      auto outc = [&](const CaseResult* c) {
         if (!c) return std::string("\u2013");
-        if (c->departure.departed) return "<b>departs at " + number(c->departure.time, 1) + " s</b>";
+        if (c->departure.departed) {
+          // a departure that reached the stall is a stall, and beyond the model's validity
+          double amax = -1e9;
+          for (const double al : c->trace.ch[ch_alpha]) amax = std::max(amax, al);
+          const bool stall = c->departure.criterion == "angle_of_attack" || amax >= d.stall_alpha;
+          return "<b>departs at " + number(c->departure.time, 1) + " s</b>" +
+                 (stall ? std::string(" (a stall: beyond the model's validity)") : std::string());
+        }
         return "no departure in " + number(c->trace.size() ? c->trace.ch[ch_time].back() : 0.0, 0) + " s";
       };
       t.rows.push_back({"gust run (Figure 2)", outc(o.held.get()), outc(o.free.get())});
@@ -1577,17 +1954,12 @@ void page_method(Page& pg, PageCtx& c) {
   FP_PAGE_NAMES(c);
   h += "<h2 id=\"s9\">9. Criteria, method and cautions</h2>\n";
   {
-    Table t;
-    t.head = {"comparison line used here", "source", "how the report holds it"};
-    t.rows = {
-        {"short-period oscillations \u201cheavily damped\u201d, controls free and fixed (no number)", "14 CFR 23.181(a)", "quoted"},
-        {"stable stick-force slope over \u00b115 % of trim speed or \u00b140 kt", "14 CFR 23.175(b)", "published; summarised"},
-        {"pull below trim, push above; speed returns within 10 % (7.5 % cruise) on release", "14 CFR 23.173 (before amdt 64)", "from memory; check the current text"},
-        {"short-period \u03b6 0.35 to 1.30, level 1, categories A and C", "MIL-F-8785C (military specification)", "published; levels, not civil rules"},
-        {"phugoid: level 3 time to double at least 55 s", "MIL-F-8785C (military specification)", "from memory; check the document"},
-        {"minimum static margin, minimum stick force per g", "options of this report", "not published criteria"},
-    };
-    h += table_html(t);
+    h += "<p>The criteria the findings and the first page compare with, in one table: the sections of the chosen "
+         "certification basis with the document and amendment of the copy quoted, the military flying-qualities "
+         "specification as labelled guidance, and the report's own options and input data, which are not criteria. A "
+         "rule's text is quoted verbatim where a public copy could be retrieved; otherwise the row says that the text was "
+         "not available and the report does not paraphrase it.</p>\n";
+    h += criteria_table_html(d);
     h += "<p class=\"note\">Method in brief: two rigid bodies (airframe and elevator with its circuit) integrated together by "
          "an error-controlled Dormand\u2013Prince 5(4) method; the tail samples the gust at its own position; closed-form "
          "neutral and maneuver points from the tail-volume formulas with the free-elevator factor (Etkin and Reid, "

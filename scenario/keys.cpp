@@ -215,6 +215,18 @@ std::vector<Key> make_table_keys() {
        .max = 300, .display = "kt", .zero_ok = true, .num = FP_NUM(envelope.min_speed)},
       {.name = "envelope.max_speed", .dim = Dim::speed, .meaning = "fastest speed of the envelope, V_NE or V_D (0 = chosen)",
        .min = 1, .max = 300, .display = "kt", .zero_ok = true, .num = FP_NUM(envelope.max_speed)},
+      // [envelope] weights and load factor: the corners the report and `floatpitch matrix` cover
+      {.name = "envelope.mass_min", .dim = Dim::mass,
+       .meaning = "lightest mass of the stated envelope, a corner of the report and of `matrix` (0 = mass.mass)",
+       .min = 1, .max = 20000, .zero_ok = true, .num = FP_NUM(envelope.mass_min)},
+      {.name = "envelope.mass_max", .dim = Dim::mass,
+       .meaning = "heaviest mass of the stated envelope, the maximum weight W of the stick-force criteria (0 = mass.mass)",
+       .min = 1, .max = 20000, .zero_ok = true, .num = FP_NUM(envelope.mass_max)},
+      {.name = "envelope.limit_load_factor",
+       .meaning = "positive limit maneuvering load factor of the airplane's category, where the maneuvering stick "
+                  "force is read (default 3.8: normal category, flaps up, 14 CFR Part 23 Appendix A Table 1, 1-1-14 "
+                  "edition)",
+       .min = 1.5, .max = 10, .num = FP_NUM(envelope.limit_load_factor)},
 
       // [condition]
       {.name = "condition.altitude", .dim = Dim::length, .meaning = "geometric altitude of the trim condition",

@@ -1013,6 +1013,10 @@ void validate_relations(const Scenario& s, const Where& where) {
   if (s.envelope.min_speed > 0.0 && s.envelope.max_speed > 0.0 && !(s.envelope.min_speed < s.envelope.max_speed))
     fail(where.any({"envelope.max_speed", "envelope.min_speed"}), "envelope.min_speed, envelope.max_speed",
          "the envelope's min_speed must be below its max_speed");
+  if (s.envelope.mass_min > 0.0 && s.envelope.mass_max > 0.0 && !(s.envelope.mass_min <= s.envelope.mass_max))
+    fail(where.any({"envelope.mass_max", "envelope.mass_min"}), "envelope.mass_min, envelope.mass_max",
+         "the envelope's lightest mass (" + keys::fmt(s.envelope.mass_min) + " kg) must not exceed its heaviest (" +
+             keys::fmt(s.envelope.mass_max) + " kg)");
   if (ci.reversible && el.ch_delta == 0.0)
     fail(where.any({"elevator.ch_delta", "circuit.reversible"}), "elevator.ch_delta",
          "is 0 while circuit.reversible = true: the floating elevator's angle and the stick-free neutral point divide "

@@ -77,6 +77,11 @@ struct Envelope {
   double cg_aft = 0.35;  // key envelope.cg_aft
   double min_speed = 0.0;  // key envelope.min_speed
   double max_speed = 0.0;  // key envelope.max_speed
+  // The weights of the stated envelope and the category's limit load factor: the corners that
+  // the report and `floatpitch matrix` cover (analysis/envelope.hpp).
+  double mass_min = 0.0;  // key envelope.mass_min
+  double mass_max = 0.0;  // key envelope.mass_max
+  double limit_load_factor = 3.8;  // key envelope.limit_load_factor
 };
 
 // Continuous turbulence ([turbulence]; see model/turbulence.hpp and docs/gusts.md).
