@@ -167,6 +167,20 @@ ModesResult compute_modes(const Scenario& s) {
     r.free_lm = linearise(*plant, t.x, c);
     r.free = modes(r.free_lm);
     r.has_free = true;
+    const auto& ci = plant->ap.circuit;
+    if (ci.friction > 0.0) {
+      auto& f = r.friction;
+      f.applies = true;
+      f.smooth_law = plant->ap.circuit_nl.friction_law == FrictionLaw::smooth;
+      f.breakout_force = ci.friction;
+      f.breakout_moment = ci.friction / ci.gearing;
+      State d{};
+      Eval e;
+      derivatives(*plant, GustField{}, t.x, c, 0.0, d, &e);
+      const auto& el = plant->ap.elevator;
+      const double per_rad = std::abs(el.ch_alpha) * e.qbar_t * el.area * el.chord;
+      f.stuck_alpha_t = per_rad > 0.0 ? f.breakout_moment / per_rad : std::numeric_limits<double>::infinity();
+    }
   }
   return r;
 }

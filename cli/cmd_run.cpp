@@ -21,6 +21,7 @@
 #include "output/analysis_text.hpp"
 #include "output/gust_text.hpp"
 #include "output/outputs.hpp"
+#include "scenario/gust_timing.hpp"
 #include "output/response_text.hpp"
 #include "output/sweep_text.hpp"
 #include "report/report.hpp"
@@ -68,7 +69,7 @@ int run(const RunOpts& o) {
     out.add("summary.json", summary.dump(2) + "\n");
     out.commit();
     if (!o.quiet) {
-      std::cout << s.path << ": " << s.name << "\n\n" << run_table(r) << gust_table(s, r, &tune);
+      std::cout << s.path << ": " << s.name << "\n\n" << run_table(r, disturbances_over_time(s)) << gust_table(s, r, &tune);
       std::cout << "wrote " << o.out << "/{" << (r.held ? "held.csv," : "") << (r.free ? "free.csv," : "")
                 << "summary.json}\n";
     }

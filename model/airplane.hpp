@@ -12,6 +12,8 @@
 
 #include <vector>
 
+#include "circuit.hpp"
+
 namespace fp {
 
 // Lift curve with a smooth stall (see aero.hpp for the blending law).
@@ -86,8 +88,9 @@ struct Circuit {
                                 // stick aft (pull) moves the elevator trailing edge up
   double stick_mass = 1.0;      // equivalent mass of stick and circuit moving with it, at the stick [kg] (0..50)
   double damping = 0.0;         // viscous damping at the stick [N s/m] (0..1e4)
-  double friction = 0.0;        // Coulomb breakout force at the stick [N] (0..500)
-  double friction_speed = 0.005;// stick speed over which friction is smoothed (tanh) [m/s] (1e-5..0.5)
+  double friction = 0.0;        // Coulomb breakout (static) force at the stick [N] (0..500); the law
+                                // (stiction by default) and the sliding force: CircuitNonlinear
+  double friction_speed = 0.005;// smoothed law only: stick speed over which it is smoothed (tanh) [m/s] (1e-5..0.5)
   double centering = 0.0;       // centering spring rate at the stick [N/m] (0..1e5)
   double centering_neutral = 0.0; // elevator angle at which the centering spring is relaxed [rad] (-0.5..0.5)
   double downspring = 0.0;      // downspring preload, a push on the stick [N] (0..500)
@@ -122,6 +125,7 @@ struct Airplane {
   Tail tail;
   Elevator elevator;
   Circuit circuit;
+  CircuitNonlinear circuit_nl;  // the circuit's nonlinear elements (circuit.hpp)
   Propulsion propulsion;
   MassProperties mass;
 };
