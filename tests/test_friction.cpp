@@ -211,7 +211,7 @@ FlownCase fly_free(FrictionLaw law, double breakout, double gust, std::vector<Ev
 
 }  // namespace
 
-TEST_CASE("hands off below breakout the elevator angle stays exactly constant; the airframe moves") {
+TEST_CASE("hands off below breakout the elevator angle stays exactly constant while the airframe moves") {
   // 20 N breakout at the stick; a 0.3 m/s gust and a 10 N pull for 2 s stay below it
   const std::vector<Event> pull{Event{3.0, EventKind::pulse, 10.0, 2.0, 1}};
   const FlownCase f = fly_free(FrictionLaw::stiction, 20.0, 0.3, pull);

@@ -6,8 +6,13 @@
 #include <doctest/doctest.h>
 
 #include <cmath>
+#include <string>
+
+#include <nlohmann/json.hpp>
 
 #include "analysis/limit_cycle.hpp"
+#include "output/outputs.hpp"
+#include "scenario/scenario.hpp"
 
 using namespace fp;
 
@@ -45,7 +50,7 @@ TEST_CASE("a steady oscillation is a limit cycle with its own amplitude and peri
   CHECK(c.window_start == doctest::Approx(20.0));  // the later half of the run
 }
 
-TEST_CASE("a decaying or a growing oscillation is not a limit cycle; nor is a departed run") {
+TEST_CASE("a decaying or a growing oscillation is not a limit cycle, nor is a departed run") {
   // 10 % a cycle either way: far beyond the 1 % a cycle the detector calls steady
   const double T = 1.7, s = std::log(1.1) / T;
   CHECK_FALSE(detect_limit_cycle(sinusoid(T, 0.02, 0.004, 0.05, -s), 0.0, false).found);
@@ -55,4 +60,29 @@ TEST_CASE("a decaying or a growing oscillation is not a limit cycle; nor is a de
   CHECK_FALSE(detect_limit_cycle(sinusoid(T, 1e-5, 1e-6, 1e-5, 0.0), 0.0, false).found);
   // too few cycles in the window
   CHECK_FALSE(detect_limit_cycle(sinusoid(10.0, 0.02, 0.004, 0.05, 0.0), 0.0, false).found);
+}
+
+// The bundled worn-circuit case: hands off, the elevator buzzes in the free play while the
+// stick side stays stuck, a sustained oscillation that the same airplane without the play does
+// not have. summary.json carries it under free -> limit_cycle (null when none).
+TEST_CASE("the worn-circuit case: a hands-off limit cycle that the model without free play misses") {
+  const std::string f = std::string(FP_SOURCE_DIR) + "/scenarios/orvane_worn_circuit.toml";
+  const Scenario s = load_scenario(f);
+  const RunOutcome o = run_scenario(s, ControlsChoice::both);
+  const nlohmann::json j = summary_json(s, o);
+  REQUIRE(j["free"]["limit_cycle"].is_object());
+  const auto& c = j["free"]["limit_cycle"];
+  for (const char* k : {"elevator_amplitude_deg", "q_amplitude_deg_s", "load_factor_amplitude", "period_s"})
+    CHECK(c[k].is_number());
+  // the elevator stays inside the play (1 deg in all), and the cycle is the elevator's own
+  // fast motion (the stick-free elevator mode of the closed circuit has a period near 0.3 s)
+  CHECK(c["elevator_amplitude_deg"].get<double>() > 0.0);
+  CHECK(c["elevator_amplitude_deg"].get<double>() < 0.5);
+  CHECK(c["period_s"].get<double>() > 0.2);
+  CHECK(c["period_s"].get<double>() < 0.6);
+  CHECK(j["held"]["limit_cycle"].is_null());
+
+  const Scenario closed = load_scenario(f, {"circuit.free_play=0"});
+  const RunOutcome oc = run_scenario(closed, ControlsChoice::free);
+  CHECK(summary_json(closed, oc)["free"]["limit_cycle"].is_null());
 }
