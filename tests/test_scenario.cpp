@@ -599,7 +599,7 @@ namespace {
   X(airplane.circuit.bobweight, 3.3) X(airplane.circuit.stop_stiffness, 2.5e4)                                \
   X(airplane.circuit.stop_damping, 45.0) X(airplane.circuit.held_stiffness, 5000.0)                           \
   X(airplane.circuit.tab_min, -0.33) X(airplane.circuit.tab_max, 0.34) X(airplane.circuit.geared_tab_ratio, 0.4) \
-  X(airplane.circuit_nl.sliding_friction, 2.2)                                                                \
+  X(airplane.circuit_nl.sliding_friction, 2.2) X(airplane.circuit_nl.free_play, 0.01)                         \
   X(airplane.propulsion.max_thrust, 1600.0) X(airplane.propulsion.density_exponent, 0.9)                     \
   X(airplane.propulsion.speed_exponent, -0.8) X(airplane.propulsion.reference_speed, 42.0)                    \
   X(airplane.propulsion.z_thrust, 0.07) X(airplane.propulsion.angle, 0.01)                                    \
