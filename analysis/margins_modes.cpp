@@ -171,6 +171,20 @@ ModesResult compute_modes(const Scenario& s) {
     r.free_lm = linearise(*plant, r.free_trim.x, linear_controls(r.free_trim, true));
     r.free = modes(r.free_lm);
     r.has_free = true;
+    const auto& ci = plant->ap.circuit;
+    if (ci.friction > 0.0) {
+      auto& f = r.friction;
+      f.applies = true;
+      f.smooth_law = plant->ap.circuit_nl.friction_law == FrictionLaw::smooth;
+      f.breakout_force = ci.friction;
+      f.breakout_moment = ci.friction / ci.gearing;
+      State d{};
+      Eval e;
+      derivatives(*plant, GustField{}, r.free_trim.x, linear_controls(r.free_trim, true), 0.0, d, &e);
+      const auto& el = plant->ap.elevator;
+      const double per_rad = std::abs(el.ch_alpha) * e.qbar_t * el.area * el.chord;
+      f.stuck_alpha_t = per_rad > 0.0 ? f.breakout_moment / per_rad : std::numeric_limits<double>::infinity();
+    }
   }
   return r;
 }

@@ -75,6 +75,19 @@ struct Margins {
 // Throws TrimError (scenario condition cannot be trimmed) or ScenarioError.
 Margins compute_margins(const Scenario& s, const MarginsOptions& o = {});
 
+// A friction circuit has two small-disturbance models (model/linear.hpp): slipping (the free
+// model, with no friction slope: a smoothing constant never enters) and stuck (the elevator
+// moves with the airframe: the held model). Stuck applies while the hinge moment the circuit
+// must hold stays within the breakout moment F_b/G; `stuck_alpha_t` is the change of tail angle
+// of attack that makes the aerodynamic hinge moment reach it (Ch_alpha q_t S_e c_e dalpha_t).
+struct FrictionModels {
+  bool applies = false;             // the circuit has friction (circuit.friction > 0) and can float
+  bool smooth_law = false;          // the runs use the smoothed (tanh) law
+  double breakout_force = 0;        // [N] at the stick
+  double breakout_moment = 0;       // F_b / G [N m] at the hinge
+  double stuck_alpha_t = 0;         // [rad] tail angle-of-attack change that reaches it (inf: Ch_alpha = 0)
+};
+
 struct ModesResult {
   Trim held_trim, free_trim;        // the equilibria linearised about (free: run/run.hpp
                                     // scenario_hands_off_trim; the same as held_trim unless the
@@ -82,6 +95,7 @@ struct ModesResult {
   LinearModel held_lm, free_lm;
   std::vector<Mode> held, free;
   bool has_free = false;            // false for an irreversible circuit
+  FrictionModels friction;
 };
 ModesResult compute_modes(const Scenario& s);
 // The controls of a linearisation about trim t: the stick held at the trim elevator, or free

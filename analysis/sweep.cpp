@@ -240,7 +240,14 @@ double growth_from_trace(const Trace& tr, const Trim& t, double t0) { return gro
 // same in both and cancels. The matrix pencil (Hua and Sarkar 1990) reads the rates of that
 // difference about a constant offset (analysis/signal.hpp growth_rate_about_offset): a
 // neutral root (a neighbouring trim at another altitude) leaves a constant, which is no growth.
-double time_domain_growth(const Scenario& s, bool free, double seconds, double tol_scale) {
+//
+// A friction circuit is read without its friction, like the eigenvalue boundary: the circuit's
+// small-disturbance models are the slipping one (no friction slope) and the stuck one (the
+// elevator moves with the airframe: the held airplane), model/linear.hpp; the free boundary is
+// where the slipping model diverges. A smoothing constant of the friction law thus never moves it.
+double time_domain_growth(const Scenario& s_in, bool free, double seconds, double tol_scale) {
+  Scenario s = s_in;
+  s.airplane.circuit.friction = 0.0;
   const auto plant = scenario_plant(s);
   const Trim t = free ? scenario_hands_off_trim(*plant, s) : scenario_trim(*plant, s);
   RunSettings rs = run_settings(s);

@@ -50,6 +50,29 @@ void run_pair_no_csv(benchmark::State& st) {
 }
 BENCHMARK(run_pair_no_csv)->Unit(benchmark::kMillisecond);
 
+// The circuit's nonlinear elements (model/circuit.hpp): the same 60 s held-and-free pair of the
+// demo with (0) no friction, (1) the smoothed friction law, (2) stiction, (3) stiction and 1 deg
+// of free play. Goal: (3) at most 1.5 times (0) and (1).
+void circuit_nonlinear(benchmark::State& st) {
+  static const char* variants[4][2] = {{"circuit.friction=0", "circuit.free_play=0"},
+                                       {"circuit.friction_law=smooth", "circuit.free_play=0"},
+                                       {"circuit.friction_law=stiction", "circuit.free_play=0"},
+                                       {"circuit.friction_law=stiction", "circuit.free_play=1deg"}};
+  const auto v = static_cast<std::size_t>(st.range(0));
+  const fp::Scenario s = fp::load_scenario(FP_SOURCE_DIR "/scenarios/orvane_gust.toml",
+                                           {"run.duration=60", variants[v][0], variants[v][1]});
+  long calls = 0, switches = 0;
+  for (auto _ : st) {
+    const fp::RunOutcome r = fp::run_scenario(s, fp::ControlsChoice::both);
+    calls += r.held->stats.derivative_calls + r.free->stats.derivative_calls;
+    switches += r.free->stats.friction_switches;
+  }
+  const auto it = static_cast<double>(st.iterations());
+  st.counters["derivative_calls_per_pair"] = benchmark::Counter(static_cast<double>(calls) / it);
+  st.counters["friction_switches"] = benchmark::Counter(static_cast<double>(switches) / it);
+}
+BENCHMARK(circuit_nonlinear)->DenseRange(0, 3)->Unit(benchmark::kMillisecond);
+
 void derivative(benchmark::State& st) {
   const auto& s = demo();
   const auto plant = fp::scenario_plant(s);

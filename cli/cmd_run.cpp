@@ -11,6 +11,7 @@
 #include "output/atomic_file.hpp"
 #include "output/gust_text.hpp"
 #include "output/outputs.hpp"
+#include "scenario/gust_timing.hpp"
 #include "run/run.hpp"
 #include "scenario/scenario.hpp"
 #include "util/caution.hpp"
@@ -55,7 +56,7 @@ int run(const RunOpts& o) {
     out.add("summary.json", summary.dump(2) + "\n");
     out.commit();
     if (!o.quiet) {
-      std::cout << s.path << ": " << s.name << "\n\n" << run_table(r) << gust_table(s, r, &tune);
+      std::cout << s.path << ": " << s.name << "\n\n" << run_table(r, disturbances_over_time(s)) << gust_table(s, r, &tune);
       std::cout << "wrote " << o.out << "/{" << (r.held ? "held.csv," : "") << (r.free ? "free.csv," : "")
                 << "summary.json}\n";
     }

@@ -13,6 +13,8 @@
 
 #include <vector>
 
+#include "model/circuit.hpp"
+
 namespace fp {
 
 // Lift curve with a smooth stall (model/dynamics.cpp has the blending law).
@@ -117,6 +119,7 @@ struct Airplane {
   Tail tail;
   Elevator elevator;
   Circuit circuit;
+  CircuitNonlinear circuit_nl;  // the circuit's nonlinear elements (circuit.hpp)
   Propulsion propulsion;
   MassProperties mass;
 };

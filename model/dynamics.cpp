@@ -56,7 +56,7 @@ ElevGeom elevator_geometry(const Plant& p, double de) {
 }
 
 Lhs inertial_side(const Plant& p, const ElevGeom& eg, double q, double ded, V2 aO, double al, double be,
-                  double bob_per_n, V2 gvec) {
+                  double bob_per_n, V2 gvec, double I_c) {
   Lhs L{};
   // airframe
   const V2 rB{p.rB_x, p.rB_z};
@@ -64,7 +64,7 @@ Lhs inertial_side(const Plant& p, const ElevGeom& eg, double q, double ded, V2 a
   L.fx = p.m_B * aB.x;
   L.fz = p.m_B * aB.z;
   L.m = p.I_B * al + p.m_B * cross(rB, aB);
-  L.h = (p.I_ecg + p.I_c) * be + p.I_ecg * al;
+  L.h = (p.I_ecg + I_c) * be + p.I_ecg * al;
   if (p.m_e > 0.0) {
     const V2 rho = eg.rho, drho = eg.drho, re = eg.re;
     // a_e = rigid acceleration of the point re + relative: be drho - ded^2 rho + 2 q x (ded drho)
@@ -149,24 +149,58 @@ Plant make_plant(const Airplane& ap) {
     throw ModelError{"mass.pitch_inertia", "the airplane's pitch inertia is too small to contain its elevator's"};
   const double G = ap.circuit.gearing;
   p.I_c = ap.circuit.stick_mass / (G * G);
+  if (ap.circuit_nl.free_play > 0.0 && p.I_c <= 0.0)
+    throw ModelError{"circuit.free_play, circuit.stick_mass",
+                     "free play makes the stick side a body of its own: it needs a mass (circuit.stick_mass > 0)"};
   return p;
 }
 
-double circuit_hinge_moment(const Airplane& ap, double de, double ded) {
+double stick_side_moment(const Airplane& ap, double de, double ded) {
+  // de, ded: the stick side's angle and rate (the elevator's own without free play)
   const auto& ci = ap.circuit;
-  const auto& el = ap.elevator;
   const double G = ci.gearing;
   double Hc = 0.0;
   Hc -= ci.damping * ded / (G * G);
-  // Coulomb friction smoothed by tanh over friction_speed at the stick: no true stiction; a
-  // load below the breakout lets the stick creep at about friction_speed * atanh(load/breakout)
-  Hc -= (ci.friction / G) * std::tanh(ded / (G * ci.friction_speed));
   Hc -= ci.centering * (de - ci.centering_neutral) / (G * G);
   Hc += ci.downspring / G;
-  // stops: stiff spring-damper contact that can push but never pull
-  if (de > el.delta_max) Hc += std::min(0.0, -ci.stop_stiffness * (de - el.delta_max) - ci.stop_damping * ded);
-  if (de < el.delta_min) Hc += std::max(0.0, -ci.stop_stiffness * (de - el.delta_min) - ci.stop_damping * ded);
   return Hc;
+}
+
+double stop_moment(const Airplane& ap, double de, double ded) {
+  const auto& el = ap.elevator;
+  // stops: stiff spring-damper contact that can push but never pull (circuit.hpp contact_moment)
+  return contact_moment(de, ded, el.delta_min, el.delta_max, ap.circuit.stop_stiffness, ap.circuit.stop_damping);
+}
+
+double play_contact_moment(const Airplane& ap, double rel, double rel_rate) {
+  const double h = 0.5 * ap.circuit_nl.free_play;
+  return contact_moment(rel, rel_rate, -h, h, ap.circuit.stop_stiffness, ap.circuit.stop_damping);
+}
+
+double circuit_hinge_moment(const Airplane& ap, double de, double ded) {
+  return stick_side_moment(ap, de, ded) + stop_moment(ap, de, ded);
+}
+
+double friction_hinge_moment(const Airplane& ap, FrictionState fs, double ded) {
+  const auto& ci = ap.circuit;
+  const double G = ci.gearing;
+  switch (fs) {
+    case FrictionState::off:
+    case FrictionState::stuck: return 0.0;
+    case FrictionState::smooth:
+      // Coulomb friction smoothed by tanh over friction_speed at the stick: no stiction; a load
+      // below the breakout lets the stick creep at about friction_speed * atanh(load/breakout)
+      return -(ci.friction / G) * std::tanh(ded / (G * ci.friction_speed));
+    case FrictionState::slip_up: return -sliding_force(ci.friction, ap.circuit_nl) / G;
+    case FrictionState::slip_down: return sliding_force(ci.friction, ap.circuit_nl) / G;
+  }
+  return 0.0;
+}
+
+bool elevator_locked(const Airplane& ap, const Controls& c) {
+  if (c.play) return false;  // with free play the elevator floats; the stick side is what locks
+  const bool rigid_hold = c.stick == Stick::held && ap.circuit.held_stiffness == 0.0;
+  return rigid_hold || c.friction == FrictionState::stuck;
 }
 
 double weight_hinge_moment(const Airplane& ap, double de, double n) {
@@ -195,6 +229,7 @@ namespace {
 // What the stages of the derivative pass on.
 struct Stage {
   double u, w, q, de, ded, cth, sth;  // state and its trigonometry
+  double ds = 0, dsd = 0;             // stick side (free play only)
   V2 gvec{0, 0};                      // gravity in body axes [m/s^2]
   V2 rW{0, 0}, rT{0, 0};              // wing-body and tail a.c. from O [m]
   double rho = 0;                     // [kg/m^3]
@@ -301,9 +336,54 @@ void forces_and_moments(const Plant& p, const Controls& ctl, const Stage& st, Ev
 // Stage 3: the accelerations of the two bodies (and, held rigidly, the pilot's hinge moment).
 struct Accel {
   double aOx = 0, aOz = 0, al = 0, be = 0;  // [m/s^2], [rad/s^2]
-  double H_pilot = 0, Hc = 0, bob = 0, G = 0;
-  bool rigid_hold = false;
+  double H_pilot = 0, Hc = 0, bob = 0, G = 0, H_friction = 0;
+  bool locked = false;
+  double dds = 0, dsd = 0;                  // free play: stick side's acceleration and rate
 };
+
+// The inertial side is affine in (aOx, aOz, al, be): the matrix from unit probes. Solves the
+// airframe's three equations with the hinge equation (4x4), or, with the elevator locked to the
+// airframe, the three alone (be = 0) and returns the moment the hinge must take to hold it.
+struct Solved {
+  double aOx = 0, aOz = 0, al = 0, be = 0, H_hold = 0;
+};
+Solved solve_bodies(const Plant& p, double q, double de, double ded, double bob, V2 gvec, double I_c, double Fx,
+                    double Fz, double Mext, double Hext, bool locked) {
+  const ElevGeom eg = elevator_geometry(p, de);
+  const auto L0 = inertial_side(p, eg, q, ded, {0, 0}, 0, 0, bob, gvec, I_c);
+  const auto Lx = inertial_side(p, eg, q, ded, {1, 0}, 0, 0, bob, gvec, I_c);
+  const auto Lz = inertial_side(p, eg, q, ded, {0, 1}, 0, 0, bob, gvec, I_c);
+  const auto La = inertial_side(p, eg, q, ded, {0, 0}, 1, 0, bob, gvec, I_c);
+  Solved r;
+  if (locked) {
+    Eigen::Matrix3d A;
+    A << Lx.fx - L0.fx, Lz.fx - L0.fx, La.fx - L0.fx,
+         Lx.fz - L0.fz, Lz.fz - L0.fz, La.fz - L0.fz,
+         Lx.m - L0.m, Lz.m - L0.m, La.m - L0.m;
+    const Eigen::Vector3d b(Fx - L0.fx, Fz - L0.fz, Mext - L0.m);
+    const Eigen::Vector3d s = A.partialPivLu().solve(b);
+    r.aOx = s(0);
+    r.aOz = s(1);
+    r.al = s(2);
+    const auto Ls = inertial_side(p, eg, q, ded, {r.aOx, r.aOz}, r.al, 0.0, bob, gvec, I_c);
+    r.H_hold = Ls.h - Hext;
+  } else {
+    const auto Lb = inertial_side(p, eg, q, ded, {0, 0}, 0, 1, bob, gvec, I_c);
+    Eigen::Matrix4d A;
+    A << Lx.fx - L0.fx, Lz.fx - L0.fx, La.fx - L0.fx, Lb.fx - L0.fx,
+         Lx.fz - L0.fz, Lz.fz - L0.fz, La.fz - L0.fz, Lb.fz - L0.fz,
+         Lx.m - L0.m, Lz.m - L0.m, La.m - L0.m, Lb.m - L0.m,
+         Lx.h - L0.h, Lz.h - L0.h, La.h - L0.h, Lb.h - L0.h;
+    const Eigen::Vector4d b(Fx - L0.fx, Fz - L0.fz, Mext - L0.m, Hext - L0.h);
+    const Eigen::Vector4d s = A.partialPivLu().solve(b);
+    r.aOx = s(0);
+    r.aOz = s(1);
+    r.al = s(2);
+    r.be = s(3);
+  }
+  return r;
+}
+
 Accel accelerations(const Plant& p, const Controls& ctl, const Stage& st, Eval& e) {
   const Airplane& ap = p.ap;
   const double q = st.q, de = st.de, ded = st.ded;
@@ -311,11 +391,14 @@ Accel accelerations(const Plant& p, const Controls& ctl, const Stage& st, Eval& 
   // circuit, referred to the hinge (see state.hpp: a stick force F adds -F/G)
   const auto& ci = ap.circuit;
   const double G = ci.gearing;
-  const double Hc = circuit_hinge_moment(ap, de, ded);
+  const bool rigid_hold = ctl.stick == Stick::held && ci.held_stiffness == 0.0;
+  const bool stuck = !rigid_hold && ctl.friction == FrictionState::stuck;
+  // a rigid hold takes whatever moment holds the surface: the circuit's friction is not felt
+  double H_friction = rigid_hold ? 0.0 : friction_hinge_moment(ap, ctl.friction, ded);
+  const double Hc = circuit_hinge_moment(ap, de, ded) + H_friction;
   const double bob = ci.bobweight / G;  // hinge moment per g
 
   double H_pilot = 0.0;
-  const bool rigid_hold = ctl.stick == Stick::held && ci.held_stiffness == 0.0;
   if (ctl.stick == Stick::free) {
     H_pilot = -ctl.pilot_force / G;
   } else if (!rigid_hold) {
@@ -332,41 +415,59 @@ Accel accelerations(const Plant& p, const Controls& ctl, const Stage& st, Eval& 
   const double Mext = e.M + cross(D, gvec);
   const double Hext = e.H_aero + Hc + H_pilot + cross(Srho, gvec);
 
-  // The inertial side is affine in (aOx, aOz, al, be): build the matrix from unit probes.
-  const ElevGeom eg = elevator_geometry(p, de);
-  const auto L0 = inertial_side(p, eg, q, ded, {0, 0}, 0, 0, bob, gvec);
-  const auto Lx = inertial_side(p, eg, q, ded, {1, 0}, 0, 0, bob, gvec);
-  const auto Lz = inertial_side(p, eg, q, ded, {0, 1}, 0, 0, bob, gvec);
-  const auto La = inertial_side(p, eg, q, ded, {0, 0}, 1, 0, bob, gvec);
-  double aOx, aOz, al, be = 0.0;
-  if (rigid_hold) {
-    Eigen::Matrix3d A;
-    A << Lx.fx - L0.fx, Lz.fx - L0.fx, La.fx - L0.fx,
-         Lx.fz - L0.fz, Lz.fz - L0.fz, La.fz - L0.fz,
-         Lx.m - L0.m, Lz.m - L0.m, La.m - L0.m;
-    const Eigen::Vector3d b(Fx - L0.fx, Fz - L0.fz, Mext - L0.m);
-    const Eigen::Vector3d s = A.partialPivLu().solve(b);
-    aOx = s(0);
-    aOz = s(1);
-    al = s(2);
-    // the hinge equation gives the pilot's hinge moment, hence the stick force
-    const auto Ls = inertial_side(p, eg, q, ded, {aOx, aOz}, al, 0.0, bob, gvec);
-    H_pilot = Ls.h - (e.H_aero + Hc + cross(Srho, gvec));
+  const bool locked = rigid_hold || stuck;
+  const Solved sv = solve_bodies(p, q, de, ded, bob, gvec, p.I_c, Fx, Fz, Mext, Hext, locked);
+  // held rigidly, the moment that holds the surface is the pilot's (hence the stick force);
+  // stuck, the friction's (the pilot's own force still acts)
+  if (rigid_hold) H_pilot = sv.H_hold + H_pilot;
+  else if (stuck) H_friction = sv.H_hold;
+  Accel a{sv.aOx, sv.aOz, sv.al, sv.be, H_pilot, stuck ? Hc + H_friction : Hc, bob, G, H_friction, locked};
+  return a;
+}
+
+// Free play (circuit.hpp): the stick side is its own degree of freedom. The elevator (its own
+// inertia, weight, aerodynamics, the stops and the contact across the play) is solved with the
+// airframe; then the stick side (the circuit's inertia I_c, damping, springs, friction,
+// bobweight at the load factor just found, the pilot) feels the contact's reaction. The stick
+// side does not act on the airframe except through the contact (its mass is in the airframe's).
+Accel accelerations_play(const Plant& p, const Controls& ctl, const Stage& st, Eval& e) {
+  const Airplane& ap = p.ap;
+  const auto& ci = ap.circuit;
+  const double G = ci.gearing;
+  const double q = st.q, de = st.de, ded = st.ded;
+  const V2 gvec = st.gvec;
+  const bool pinned = ctl.stick == Stick::held && ci.held_stiffness == 0.0;  // the hand holds it rigidly
+  const bool stuck = !pinned && ctl.friction == FrictionState::stuck;
+  const double ds = pinned ? ctl.hold_de : st.ds;
+  const double dsd = pinned || stuck ? 0.0 : st.dsd;
+  const double C = play_contact_moment(ap, de - ds, ded - dsd);  // on the elevator
+  const double Hel = stop_moment(ap, de, ded) + C;
+  const double cde = std::cos(de), sde = std::sin(de);
+  const V2 D = p.m_e > 0 ? V2{p.S_e * (1.0 - cde), p.S_e * sde} : V2{0, 0};
+  const V2 Srho{-p.S_e * cde, p.S_e * sde};
+  const double Hext = e.H_aero + Hel + cross(Srho, gvec);
+  const Solved sv = solve_bodies(p, q, de, ded, 0.0, gvec, 0.0, e.X + p.m * gvec.x, e.Z + p.m * gvec.z,
+                                 e.M + cross(D, gvec), Hext, false);
+  const double n = -(sv.aOz - gvec.z) / g;
+  const double bob = ci.bobweight / G;
+  // the stick side: I_c dds = H_stick + bob n - C + H_pilot + H_friction
+  double H_pilot = 0.0;
+  if (ctl.stick == Stick::free) H_pilot = -(ctl.pilot_force / G);
+  else if (!pinned) H_pilot = -ci.held_stiffness * (ds - ctl.hold_de) / (G * G);
+  const double Hs = stick_side_moment(ap, ds, dsd) + bob * n - C;
+  double H_friction = 0.0, dds = 0.0;
+  if (pinned) {
+    H_pilot = -Hs;
+  } else if (stuck) {
+    H_friction = -(Hs + H_pilot);
   } else {
-    const auto Lb = inertial_side(p, eg, q, ded, {0, 0}, 0, 1, bob, gvec);
-    Eigen::Matrix4d A;
-    A << Lx.fx - L0.fx, Lz.fx - L0.fx, La.fx - L0.fx, Lb.fx - L0.fx,
-         Lx.fz - L0.fz, Lz.fz - L0.fz, La.fz - L0.fz, Lb.fz - L0.fz,
-         Lx.m - L0.m, Lz.m - L0.m, La.m - L0.m, Lb.m - L0.m,
-         Lx.h - L0.h, Lz.h - L0.h, La.h - L0.h, Lb.h - L0.h;
-    const Eigen::Vector4d b(Fx - L0.fx, Fz - L0.fz, Mext - L0.m, Hext - L0.h);
-    const Eigen::Vector4d s = A.partialPivLu().solve(b);
-    aOx = s(0);
-    aOz = s(1);
-    al = s(2);
-    be = s(3);
+    H_friction = friction_hinge_moment(ap, ctl.friction, dsd);
+    dds = (Hs + H_pilot + H_friction) / p.I_c;
   }
-  return Accel{aOx, aOz, al, be, H_pilot, Hc, bob, G, rigid_hold};
+  Accel a{sv.aOx, sv.aOz, sv.al, sv.be, H_pilot, Hel, 0.0, G, H_friction, false};
+  a.dds = dds;
+  a.dsd = dsd;
+  return a;
 }
 
 }  // namespace
@@ -379,24 +480,27 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
   st.w = x[sx::w];
   st.q = x[sx::q];
   st.de = x[sx::de];
-  st.ded = ctl.stick == Stick::held && ap.circuit.held_stiffness == 0.0 ? 0.0 : x[sx::de_dot];
+  st.ded = elevator_locked(ap, ctl) ? 0.0 : x[sx::de_dot];
+  st.ds = x[sx::ds];
+  st.dsd = x[sx::ds_dot];
   st.cth = std::cos(x[sx::theta]);
   st.sth = std::sin(x[sx::theta]);
   st.gvec = V2{-g * st.sth, g * st.cth};
   Eval e;
   air_data(p, gust, x, ctl, t, st, e);
   forces_and_moments(p, ctl, st, e);
-  const Accel acc = accelerations(p, ctl, st, e);
+  const Accel acc = ctl.play ? accelerations_play(p, ctl, st, e) : accelerations(p, ctl, st, e);
   const double u = st.u, w = st.w, q = st.q, ded = st.ded, cth = st.cth, sth = st.sth;
   const double aOx = acc.aOx, aOz = acc.aOz, al = acc.al, be = acc.be, G = acc.G, H_pilot = acc.H_pilot;
   const double Hc = acc.Hc, bob = acc.bob;
-  const bool rigid_hold = acc.rigid_hold;
+  const bool locked = acc.locked;
   const V2 gvec = st.gvec;
   const int nlag = st.nlag;
   const double Vsafe = st.Vsafe, eps_target = st.eps_target;
   e.stick_force = -G * H_pilot;
   e.load_factor = -e.Z / (p.m * g);
   e.H_circuit = Hc + bob * (-(aOz - gvec.z) / g);
+  e.H_friction = acc.H_friction;
 
   e.u_dot = aOx - q * w;
   e.w_dot = aOz + q * u;
@@ -410,7 +514,9 @@ void derivatives(const Plant& p, const GustField& gust, const State& x, const Co
   dxdt[sx::x] = u * cth + w * sth;
   dxdt[sx::h] = u * sth - w * cth;
   dxdt[sx::de] = ded;
-  dxdt[sx::de_dot] = rigid_hold ? 0.0 : be;
+  dxdt[sx::de_dot] = locked ? 0.0 : be;
+  dxdt[sx::ds] = acc.dsd;  // the stick side (free play only; 0 otherwise)
+  dxdt[sx::ds_dot] = acc.dds;
   // downwash lag: nlag first-order stages of equal time constant, total l_t / V
   for (std::size_t i = 0; i < sx::max_lag_stages; ++i) dxdt[sx::eps0 + i] = 0.0;
   if (nlag > 0) {

@@ -68,6 +68,11 @@ struct Controls {
   double pilot_force = 0.0;  // pilot's force on the free stick, pull positive [N]
   double tab = 0.0;          // trim-tab setting (the geared part is added) [rad]
   double throttle = 0.5;     // [-] 0..1 (may exceed 1 only in trim diagnostics)
+  FrictionState friction = FrictionState::off;  // what the circuit friction does (circuit.hpp);
+                             // off for static analyses and linear models, set by the run
+  bool play = false;         // the run models the free play (circuit.hpp): the stick side is a
+                             // degree of freedom (sx::ds); off for static analyses and linear
+                             // models (the play closed). Held rigidly, hold_de is the stick side's angle
 };
 
 // Everything computed in one derivative call, grouped by stage.
@@ -86,6 +91,8 @@ struct Eval {
   double thrust = 0;                           // [N]
   double H_aero = 0;                           // aerodynamic hinge moment [N m]
   double H_circuit = 0;                        // circuit hinge moment (springs, friction, stops, bobweight at this n) [N m]
+  double H_friction = 0;                       // friction hinge moment acting; stuck: the moment needed to
+                                               // hold the elevator still relative to the airframe [N m]
   double stick_force = 0;                      // pilot's force, pull positive [N]
   double load_factor = 0;                      // [-]
   // accelerations
@@ -97,9 +104,26 @@ struct Eval {
 void derivatives(const Plant& p, const GustField& gust, const State& x, const Controls& c,
                  double t, State& dxdt, Eval* out = nullptr);
 
-// Hinge moment of the circuit at elevator angle de and rate ded (damping, friction, centering
-// spring, downspring, stops; not the bobweight, which depends on the load factor) [N m].
+// Hinge moment of the circuit at elevator angle de and rate ded (damping, centering spring,
+// downspring, stops; not the friction, see below, nor the bobweight, which depends on the load
+// factor) [N m].
 double circuit_hinge_moment(const Airplane& ap, double de, double ded);
+// Its parts: on the stick side (damping, centering spring, downspring) at the stick side's angle
+// ds and rate dsd, and at the surface (the deflection stops) [N m].
+double stick_side_moment(const Airplane& ap, double ds, double dsd);
+double stop_moment(const Airplane& ap, double de, double ded);
+// Moment on the elevator from the contact at the ends of the free play, at the relative angle
+// rel = delta_e - stick side and its rate (circuit.hpp contact_moment) [N m].
+double play_contact_moment(const Airplane& ap, double rel, double rel_rate);
+
+// Friction hinge moment for a friction state that sets it (off: 0; smooth: the tanh law at the
+// rate ded; slip_up / slip_down: the sliding force against the slip; stuck: 0, as the moment is
+// whatever holds the elevator, which derivatives() computes into Eval::H_friction) [N m].
+double friction_hinge_moment(const Airplane& ap, FrictionState fs, double ded);
+
+// True when the elevator does not move relative to the airframe under these controls: the
+// stick held rigidly, or a stiction circuit stuck.
+bool elevator_locked(const Airplane& ap, const Controls& c);
 
 // Quasi-static hinge moment in steady flight at load factor n (no elevator motion): the
 // aerodynamic hinge moment H_aero plus the circuit's, the bobweight's B n / G and the

@@ -40,7 +40,11 @@ inline constexpr std::size_t de = 6;       // elevator deflection, trailing edge
 inline constexpr std::size_t de_dot = 7;   // elevator rate relative to the airframe [rad/s]
 inline constexpr std::size_t eps0 = 8;     // downwash lag stages (up to 4) [rad]
 inline constexpr std::size_t max_lag_stages = 4;
-inline constexpr std::size_t count = 12;
+// Free play (model/circuit.hpp): the stick side of the circuit, referred to the surface, is a
+// degree of freedom of its own in runs that model the play; otherwise it is unused (0).
+inline constexpr std::size_t ds = 12;      // stick side: the elevator angle the stick commands [rad]
+inline constexpr std::size_t ds_dot = 13;  // its rate relative to the airframe [rad/s]
+inline constexpr std::size_t count = 14;
 }  // namespace sx
 
 using State = std::array<double, sx::count>;
@@ -48,8 +52,8 @@ using State = std::array<double, sx::count>;
 // Name and unit of each entry (SI), for the state-space CSVs and error messages.
 inline constexpr std::array<const char*, sx::count> state_names{
     "u", "w", "q", "theta", "x", "h", "delta_e", "delta_e_dot", "eps_lag1", "eps_lag2",
-    "eps_lag3", "eps_lag4"};
+    "eps_lag3", "eps_lag4", "stick_side", "stick_side_dot"};
 inline constexpr std::array<const char*, sx::count> state_units{
-    "m/s", "m/s", "rad/s", "rad", "m", "m", "rad", "rad/s", "rad", "rad", "rad", "rad"};
+    "m/s", "m/s", "rad/s", "rad", "m", "m", "rad", "rad/s", "rad", "rad", "rad", "rad", "rad", "rad/s"};
 
 }  // namespace fp

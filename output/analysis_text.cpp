@@ -178,13 +178,38 @@ json modes_json(const ModesResult& r) {
                 {"imag", d.found ? json(d.root.imag()) : json(nullptr)}, {"stable", d.found && d.root.real() < 0},
                 {"set_aside", aside}};
   };
+  json fr = nullptr;
+  if (r.friction.applies)
+    fr = json{{"free_model", "slipping (no friction slope)"},
+              {"stuck_model", "held (the elevator moves with the airframe)"},
+              {"breakout_force_n", r.friction.breakout_force},
+              {"breakout_moment_n_m", r.friction.breakout_moment},
+              {"stuck_below_tail_alpha_change_deg",
+               std::isfinite(r.friction.stuck_alpha_t) ? json(units::to_deg(r.friction.stuck_alpha_t)) : json(nullptr)}};
   auto about = [](const Trim& t) {
     return json{{"airspeed_m_s", t.airspeed}, {"alpha_deg", units::to_deg(t.alpha)},
                 {"elevator_deg", units::to_deg(t.de)}, {"tab_deg", units::to_deg(t.tab)}};
   };
   return json{{"held", arr(r.held)}, {"free", r.has_free ? arr(r.free) : json(nullptr)},
               {"deciding_root", {{"held", dec(r.held)}, {"free", r.has_free ? dec(r.free) : json(nullptr)}}},
-              {"linearised_about", {{"held", about(r.held_trim)}, {"free", r.has_free ? about(r.free_trim) : json(nullptr)}}}};
+              {"linearised_about", {{"held", about(r.held_trim)}, {"free", r.has_free ? about(r.free_trim) : json(nullptr)}}},
+              {"friction_models", fr}};
+}
+
+std::string friction_models_text(const FrictionModels& f) {
+  if (!f.applies) return "";
+  std::ostringstream o;
+  o << "Friction circuit (breakout " << fixed(f.breakout_force, 2) << " N at the stick, " << fixed(f.breakout_moment, 3)
+    << " N m at the hinge): two linear models.\n"
+    << "  slipping: the stick-free modes above (no friction slope; a smoothing constant does not enter).\n"
+    << "  stuck: the elevator moves with the airframe, i.e. the stick-held modes above; it applies while the\n"
+    << "  hinge moment to hold stays within the breakout";
+  if (std::isfinite(f.stuck_alpha_t))
+    o << ", about a tail angle-of-attack change of " << fixed(units::to_deg(f.stuck_alpha_t), 3) << " deg from trim";
+  o << ".\n";
+  if (f.smooth_law)
+    o << "  The runs use the smoothed friction law (circuit.friction_law = \"smooth\"): its slope is not physical damping.\n";
+  return o.str();
 }
 
 std::string modes_table(const ModesResult& r) {
@@ -231,6 +256,7 @@ std::string modes_table(const ModesResult& r) {
       << fixed(units::to_kt(r.held_trim.airspeed), 1) << " kt): let go, the airplane settles there\n";
   if (r.has_free) block("Stick free:", r.free);
   else o << "Stick free: none (irreversible circuit)\n";
+  o << friction_models_text(r.friction);
   return o.str();
 }
 

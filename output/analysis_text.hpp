@@ -15,6 +15,8 @@ std::string margins_table(const Margins& m);
 std::string per_g_stop_text(const PerGCurve& c);
 nlohmann::json modes_json(const ModesResult& r);
 std::string modes_table(const ModesResult& r);
+// Which linear model of a friction circuit applies, and at what disturbance size ("" without friction).
+std::string friction_models_text(const FrictionModels& f);
 // State-space matrices as CSV (first row: column names with units; first column: row names).
 std::string matrix_csv(const LinearModel& lm, bool inputs);
 

@@ -9,6 +9,7 @@
 #include <nlohmann/json.hpp>
 
 #include "model/units.hpp"
+#include "scenario/gust_timing.hpp"
 #include "version.hpp"
 
 namespace fp {
@@ -136,7 +137,32 @@ json summary_json(const Scenario& s, const RunOutcome& o) {
           "data, which carry large uncertainty; no flutter or structural flexibility is modelled; not "
           "approved data. Flight-test and compliance findings belong to qualified, authorized people "
           "under the applicable airworthiness rules."}};
+  const double quiet = disturbances_over_time(s);
+  if (o.held) j["held"]["limit_cycle"] = limit_cycle_json(detect_limit_cycle(o.held->trace, quiet, o.held->departure.departed));
+  if (o.free) j["free"]["limit_cycle"] = limit_cycle_json(detect_limit_cycle(o.free->trace, quiet, o.free->departure.departed));
   return j;
+}
+
+json limit_cycle_json(const LimitCycle& c) {
+  if (!c.found) return nullptr;
+  return json{{"elevator_amplitude_deg", units::to_deg(c.elevator_amplitude)},
+              {"q_amplitude_deg_s", units::to_deg(c.q_amplitude)},
+              {"load_factor_amplitude", c.load_factor_amplitude},
+              {"period_s", c.period},
+              {"cycles", c.cycles},
+              {"window_start_s", c.window_start},
+              {"amplitude_trend_per_cycle", c.trend_per_cycle},
+              {"amplitude_spread", c.amplitude_spread}};
+}
+
+std::string limit_cycle_line(const LimitCycle& c) {
+  if (!c.found)
+    return "no sustained oscillation (limit cycle) from t = " + fixed(c.window_start, 1) +
+           " s (pitch-rate amplitudes below 0.01 deg/s are not reported)";
+  return "LIMIT CYCLE from t = " + fixed(c.window_start, 1) + " s: period " + fixed(c.period, 2) + " s, elevator +-" +
+         fixed(units::to_deg(c.elevator_amplitude), 3) + " deg, pitch rate +-" + fixed(units::to_deg(c.q_amplitude), 3) +
+         " deg/s, load factor +-" + fixed(c.load_factor_amplitude, 4) + " (mean of " + std::to_string(c.cycles) +
+         " cycles; single cycles differ by up to " + fixed(100.0 * c.amplitude_spread, 0) + " %)";
 }
 
 std::string trim_table(const Trim& t, const char* title) {
@@ -153,7 +179,7 @@ std::string trim_table(const Trim& t, const char* title) {
   return o.str();
 }
 
-std::string run_table(const RunOutcome& o) {
+std::string run_table(const RunOutcome& o, double quiet_from) {
   std::ostringstream s;
   s << trim_table(o.trim, "Trim (start of both runs)");
   const CaseResult* cases[2] = {o.held.get(), o.free.get()};
@@ -191,6 +217,8 @@ std::string run_table(const RunOutcome& o) {
       s << "no departure within " << fixed(cases[k]->trace.size() ? cases[k]->trace.ch[ch_time].back() : 0.0, 1)
         << " s";
     s << "; " << cases[k]->stats.steps << " steps, " << cases[k]->stats.derivative_calls << " derivative calls";
+    if (!cases[k]->departure.departed)
+      s << "\n  " << limit_cycle_line(detect_limit_cycle(cases[k]->trace, quiet_from, false));
   }
   s << "\n";
   return s.str();

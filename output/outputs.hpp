@@ -6,6 +6,7 @@
 
 #include <nlohmann/json_fwd.hpp>
 
+#include "analysis/limit_cycle.hpp"
 #include "run/run.hpp"
 #include "util/format.hpp"
 
@@ -23,8 +24,14 @@ nlohmann::json trim_json(const Trim& t);
 nlohmann::json case_json(const CaseResult& c);
 nlohmann::json summary_json(const Scenario& s, const RunOutcome& o);
 
-// Human-readable held-versus-free table of a run (for the terminal).
-std::string run_table(const RunOutcome& o);
+// Human-readable held-versus-free table of a run (for the terminal); `quiet_from` is when the
+// run's disturbances are over (scenario/gust_timing.hpp), where the limit-cycle search starts.
+std::string run_table(const RunOutcome& o, double quiet_from = 0.0);
+
+// A limit cycle (analysis/limit_cycle.hpp) as summary.json's `limit_cycle` (null when none)
+// and as the run table's line.
+nlohmann::json limit_cycle_json(const LimitCycle& c);
+std::string limit_cycle_line(const LimitCycle& c);
 std::string trim_table(const Trim& t, const char* title);
 
 

@@ -54,10 +54,12 @@ const ChannelInfo& channel_info(std::size_t ch) { return kChannels.at(ch); }
 double hold_force(const Plant& p, const GustField& gust, double t, const State& x, const Controls& c) {
   Controls h = c;
   h.stick = Stick::held;
-  h.hold_de = x[sx::de];
+  h.hold_de = c.play ? x[sx::ds] : x[sx::de];  // with free play: the stick where it is
   h.pilot_force = 0.0;
+  h.friction = FrictionState::off;
   State xs = x;
-  xs[sx::de_dot] = 0.0;
+  if (c.play) xs[sx::ds_dot] = 0.0;
+  else xs[sx::de_dot] = 0.0;
   State d{};
   Eval e;
   if (p.ap.circuit.held_stiffness == 0.0) {
@@ -114,6 +116,7 @@ Simulation::Simulation(std::shared_ptr<const Plant> plant, GustField gust, const
   x_ = trim.x;
   ctl_ = trim.controls;
   V_trim_ = trim.airspeed;
+  if (plant_->ap.circuit_nl.free_play > 0.0) start_play(trim);
   bounds_ = departure_bounds(settings_, V_trim_);
   // the free case starts held and lets go at its time (at once when it is 0)
   if (rc.stick == Stick::free) {
@@ -134,6 +137,7 @@ Simulation::Simulation(std::shared_ptr<const Plant> plant, GustField gust, const
     pending_.erase(pending_.begin());
     apply(e);
   }
+  settle_friction();
   record(0.0, x_);
   out_index_ = 1;
   next_out_ = settings_.output_step;
@@ -271,8 +275,8 @@ void Simulation::apply(const Event& e) {
     case EventKind::take_hold:
       if (is_free_case && ctl_.stick == Stick::free) {
         ctl_.stick = Stick::held;
-        ctl_.hold_de = x_[sx::de];
-        if (plant_->ap.circuit.held_stiffness == 0.0) x_[sx::de_dot] = 0.0;
+        ctl_.hold_de = ctl_.play ? x_[sx::ds] : x_[sx::de];
+        if (plant_->ap.circuit.held_stiffness == 0.0) x_[ctl_.play ? sx::ds_dot : sx::de_dot] = 0.0;
       }
       break;
     case EventKind::tab:
@@ -298,7 +302,7 @@ void Simulation::apply(const Event& e) {
     case EventKind::elevator:
       if (ctl_.stick == Stick::held) {
         ctl_.hold_de += e.value;
-        if (plant_->ap.circuit.held_stiffness == 0.0) x_[sx::de] = ctl_.hold_de;
+        if (plant_->ap.circuit.held_stiffness == 0.0) x_[ctl_.play ? sx::ds : sx::de] = ctl_.hold_de;
         if (e.duration > 0.0) {
           Event end = e;
           end.time = e.time + e.duration;
@@ -310,6 +314,149 @@ void Simulation::apply(const Event& e) {
         }
       }
       break;
+  }
+  settle_friction();
+  restart();
+}
+
+// ---------------------------------------------------------------------------------------------
+// Stiction (model/circuit.hpp): phases and their switches, located on the dense output.
+
+namespace {
+bool stiction_phase(FrictionState f) {
+  return f == FrictionState::stuck || f == FrictionState::slip_up || f == FrictionState::slip_down;
+}
+}  // namespace
+
+// Free play: the stick side starts where the contact carries the trim's hinge moment to the
+// elevator at rest, C = -(H_aero + stops + S_e cos(delta_e) g0) (steady flight at 1 g: the
+// elevator's own balance), so the elevator starts at its trimmed angle; held, the hand holds the
+// stick side there.
+void Simulation::start_play(const Trim& trim) {
+  const Airplane& ap = plant_->ap;
+  ctl_.play = true;
+  const double de = x_[sx::de];
+  const double C = -(trim.eval.H_aero + stop_moment(ap, de, 0.0) + ap.elevator.mass_moment * std::cos(de) * units::g0);
+  x_[sx::ds] = de - play_offset(C, ap.circuit_nl.free_play, ap.circuit.stop_stiffness);
+  x_[sx::ds_dot] = 0.0;
+  ctl_.hold_de = x_[sx::ds];
+}
+
+void Simulation::settle_friction() {
+  const Airplane& ap = plant_->ap;
+  const bool rigid = ctl_.stick == Stick::held && ap.circuit.held_stiffness == 0.0;
+  if (rigid || ap.circuit.friction <= 0.0) {
+    ctl_.friction = FrictionState::off;
+    return;
+  }
+  if (ap.circuit_nl.friction_law == FrictionLaw::smooth) {
+    ctl_.friction = FrictionState::smooth;
+    return;
+  }
+  const double ded = x_[rate_index()];
+  const bool slipping_on = (ctl_.friction == FrictionState::slip_up && ded > 0.0) ||
+                           (ctl_.friction == FrictionState::slip_down && ded < 0.0);
+  if (slipping_on) return;
+  if (ded != 0.0 && !stiction_phase(ctl_.friction)) {  // from another law or state: slip as it moves
+    ctl_.friction = ded > 0.0 ? FrictionState::slip_up : FrictionState::slip_down;
+    return;
+  }
+  decide_at_rest();
+}
+
+// At rest relative to the airframe: stuck when the moment that holds the elevator there is
+// within the breakout moment F_b/G, else slipping against that moment.
+void Simulation::decide_at_rest() {
+  const Airplane& ap = plant_->ap;
+  x_[rate_index()] = 0.0;
+  Controls c = ctl_;
+  c.friction = FrictionState::stuck;
+  State d{};
+  Eval e;
+  derivatives(*plant_, gust_, x_, c, t_, d, &e);
+  const double Hb = ap.circuit.friction / ap.circuit.gearing;
+  if (std::abs(e.H_friction) <= Hb) ctl_.friction = FrictionState::stuck;
+  else ctl_.friction = e.H_friction > 0.0 ? FrictionState::slip_down : FrictionState::slip_up;
+}
+
+// Positive while the present phase holds: slipping, the rate in the slip's direction; stuck,
+// the breakout moment less the moment needed to hold.
+double Simulation::friction_switch(double t, const State& x) const {
+  switch (ctl_.friction) {
+    case FrictionState::slip_up: return x[rate_index()];
+    case FrictionState::slip_down: return -x[rate_index()];
+    case FrictionState::stuck: {
+      State d{};
+      Eval e;
+      derivatives(*plant_, gust_, x, ctl_, t, d, &e);
+      return plant_->ap.circuit.friction / plant_->ap.circuit.gearing - std::abs(e.H_friction);
+    }
+    default: return 1.0;
+  }
+}
+
+// The first instant in the stepper's last step, up to `upto`, where the present phase ends:
+// the switching function's sign change bracketed on the dense output (a polynomial in t inside
+// the step) and refined with TOMS 748 (Alefeld, Potra and Shi 1995) to 50 bits.
+bool Simulation::locate_friction_switch(double upto, double& t_ev, State& x_ev) {
+  if (!stiction_phase(ctl_.friction)) return false;
+  auto& st = *stepper_;
+  const double t1 = std::min(upto, st.dense.current_time());
+  double t0 = std::max(st.dense.previous_time(), t_);
+  if (!(t1 > t0)) return false;
+  State xs;
+  auto g = [&](double t) {
+    st.dense.calc_state(t, xs);
+    return friction_switch(t, xs);
+  };
+  const double g1 = g(t1);
+  if (g1 > 0.0) return false;
+  if (!(g(t0) > 0.0)) {
+    // the phase began on its boundary at t0 (a slip from rest): the first instant where it holds
+    bool found = false;
+    for (int k = 1; k < 64 && !found; ++k) {
+      const double tk = t0 + (t1 - t0) * k / 64.0;
+      if (g(tk) > 0.0) {
+        t0 = tk;
+        found = true;
+      }
+    }
+    if (!found) {  // it did not hold at all: the switch is at its start
+      t_ev = t0;
+      st.dense.calc_state(t0, x_ev);
+      return true;
+    }
+  }
+  std::uintmax_t iters = 100;
+  const auto r = boost::math::tools::toms748_solve(g, t0, t1, boost::math::tools::eps_tolerance<double>(50), iters);
+  if (iters >= 100)
+    throw NumericalFailure{t1, st.dense.current_state(),
+                           "the friction phase switch was not located in 100 evaluations (TOMS 748)"};
+  t_ev = r.second;  // the end of the bracket where the phase no longer holds
+  st.dense.calc_state(t_ev, x_ev);
+  return true;
+}
+
+void Simulation::switch_friction(double t_ev, const State& x_ev) {
+  if (t_ev <= last_switch_time_ + 1e-12) {
+    if (++switches_at_once_ > 20)
+      throw NumericalFailure{t_ev, x_ev, "the friction phases switched more than 20 times at one instant"};
+  } else {
+    switches_at_once_ = 0;
+  }
+  last_switch_time_ = t_ev;
+  ++stats_.friction_switches;
+  t_ = t_ev;
+  x_ = x_ev;
+  if (ctl_.friction == FrictionState::stuck) {
+    // breakout: slip against the moment that held it
+    State d{};
+    Eval e;
+    derivatives(*plant_, gust_, x_, ctl_, t_, d, &e);
+    ctl_.friction = e.H_friction > 0.0 ? FrictionState::slip_down : FrictionState::slip_up;
+    x_[rate_index()] = 0.0;
+  } else {
+    decide_at_rest();  // the rate reached zero: stuck, or slipping back
   }
   restart();
 }
@@ -395,7 +542,8 @@ bool Simulation::advance_to(double target) {
       // the stepper is ahead of t_: first the grid points of its last step up to `stop`
       if (!sample(std::min(st.dense.current_time(), stop), stop)) return false;
     }
-    // step until the stepper has passed `stop`
+    // step until the stepper has passed `stop` (or a friction phase ends)
+    bool switched = false;
     while (st.dense.current_time() < stop - tiny) {
       const double t_before = st.dense.current_time();
       try {
@@ -417,10 +565,23 @@ bool Simulation::advance_to(double target) {
       ++stats_.steps;
       stats_.min_step = stats_.steps == 1 ? h : std::min(stats_.min_step, h);
       stats_.max_step = std::max(stats_.max_step, h);
+      double t_ev = 0.0;
+      State x_ev{};
+      if (locate_friction_switch(stop, t_ev, x_ev)) {
+        // the grid up to the switch comes from this step; the next phase starts afresh there
+        if (!sample(t_ev, t_ev)) return false;
+        switch_friction(t_ev, x_ev);
+        switched = true;
+        break;
+      }
       if (!sample(std::min(t_after, stop), stop)) return false;
     }
+    if (switched) continue;
     st.dense.calc_state(stop, x_);
     t_ = stop;
+    // a stiction phase may end in the part of the last step beyond `stop`, which no later
+    // slice would look at: the next slice starts afresh at `stop`
+    if (stiction_phase(ctl_.friction) && st.dense.current_time() > stop + tiny) restart();
     if (event_next && std::abs(pending_.front().time - stop) <= tiny + 1e-15 * stop) {
       while (!pending_.empty() && pending_.front().time <= t_ + tiny) {
         const Event e = pending_.front();

@@ -55,6 +55,7 @@ struct SolverStats {
   long derivative_calls = 0;  // calls of the derivative function
   double min_step = 0;        // smallest accepted step [s]
   double max_step = 0;        // largest accepted step [s]
+  long friction_switches = 0; // stiction circuit: stuck <-> slipping switches located as events
 };
 
 struct NumericalFailure {
@@ -152,6 +153,17 @@ class Simulation {
   // A departure found at t_hi: its time (the earliest crossing after the last instant checked
   // clear) and reason are stored and the run is over.
   void record_departure(double t_hi, const State& x_hi);
+  // Stiction (model/circuit.hpp): the friction state for the present state and controls, set
+  // at the start and after every event; the switching function of the present phase (positive
+  // while the phase holds); and the phase switch located inside the stepper's last step
+  // (false when the phase holds through it).
+  void start_play(const Trim& trim);
+  std::size_t rate_index() const { return ctl_.play ? sx::ds_dot : sx::de_dot; }  // friction acts on this rate
+  void settle_friction();
+  void decide_at_rest();
+  double friction_switch(double t, const State& x) const;
+  bool locate_friction_switch(double upto, double& t_ev, State& x_ev);
+  void switch_friction(double t_ev, const State& x_ev);
 
   std::shared_ptr<const Plant> plant_;
   GustField gust_;
@@ -170,6 +182,8 @@ class Simulation {
   bool done_ = false;
   double end_checked_ = -1.0;    // last step end checked for a departure [s]
   double clear_time_ = 0.0;      // last instant checked and found within every bound [s]
+  double last_switch_time_ = -1.0;  // time of the last friction switch [s]
+  int switches_at_once_ = 0;     // friction switches in a row at the same instant
   DepartureBounds bounds_;
   std::shared_ptr<Stepper> stepper_;
 };

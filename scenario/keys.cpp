@@ -153,9 +153,25 @@ std::vector<Key> make_table_keys() {
        .num = FP_NUM(airplane.circuit.damping)},
       {.name = "circuit.friction", .dim = Dim::force, .meaning = "Coulomb breakout force at the stick", .min = 0,
        .max = 500, .num = FP_NUM(airplane.circuit.friction)},
+      {.name = "circuit.friction_law", .kind = Kind::choice,
+       .meaning = "friction law: stiction (stuck until the holding moment exceeds the breakout, then sliding; "
+                  "the elevator does not creep) or smooth (tanh law over circuit.friction_speed: the stick creeps "
+                  "under any load below the breakout)",
+       .choices = {"stiction", "smooth"},
+       .get_choice = [](const Scenario& s) { return static_cast<int>(s.airplane.circuit_nl.friction_law); },
+       .set_choice = [](Scenario& s, int i) { s.airplane.circuit_nl.friction_law = static_cast<FrictionLaw>(i); }},
+      {.name = "circuit.sliding_friction", .dim = Dim::force,
+       .meaning = "sliding (kinetic) friction force at the stick, at most the breakout circuit.friction; 0 = equal "
+                  "to the breakout (stiction law only)",
+       .min = 0.001, .max = 500, .zero_ok = true, .num = FP_NUM(airplane.circuit_nl.sliding_friction)},
+      {.name = "circuit.free_play", .dim = Dim::angle,
+       .meaning = "total free play (backlash) between the stick side and the elevator, as an angle at the surface; "
+                  "the elevator floats inside it, also with the stick held; its ends meet in the stops' contact "
+                  "law (circuit.stop_stiffness, stop_damping); needs circuit.stick_mass > 0",
+       .min = 0, .max = 0.2, .display = "deg", .num = FP_NUM(airplane.circuit_nl.free_play)},
       {.name = "circuit.friction_speed", .dim = Dim::speed,
-       .meaning = "stick speed over which the friction force is smoothed (tanh law)", .min = 1e-5, .max = 0.5,
-       .num = FP_NUM(airplane.circuit.friction_speed)},
+       .meaning = "smooth friction law only: stick speed over which the friction force is smoothed (tanh law)",
+       .min = 1e-5, .max = 0.5, .num = FP_NUM(airplane.circuit.friction_speed)},
       {.name = "circuit.centering", .dim = Dim::stiffness, .meaning = "centering spring rate at the stick", .min = 0,
        .max = 1e5, .num = FP_NUM(airplane.circuit.centering)},
       {.name = "circuit.centering_neutral", .dim = Dim::angle,

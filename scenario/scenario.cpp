@@ -1006,6 +1006,14 @@ void validate_relations(const Scenario& s, const Where& where) {
   if (!(ci.tab_min < ci.tab_max))
     fail(where.any({"circuit.tab_max", "circuit.tab_min"}), "circuit.tab_min, circuit.tab_max",
          "the tab range is empty: tab_min (" + deg(ci.tab_min) + ") must be below tab_max (" + deg(ci.tab_max) + ")");
+  if (s.airplane.circuit_nl.sliding_friction > ci.friction)
+    fail(where.any({"circuit.sliding_friction", "circuit.friction"}), "circuit.sliding_friction",
+         "= " + keys::fmt(s.airplane.circuit_nl.sliding_friction) + " N is above the breakout force circuit.friction = " +
+             keys::fmt(ci.friction) + " N: the sliding force must be at most the breakout (0 = equal to it)");
+  if (s.airplane.circuit_nl.free_play > 0.0 && ci.stick_mass <= 0.0)
+    fail(where.any({"circuit.free_play", "circuit.stick_mass"}), "circuit.free_play",
+         "= " + deg(s.airplane.circuit_nl.free_play) +
+             " needs circuit.stick_mass > 0: with free play the stick side is a body of its own (got stick_mass = 0)");
   if (!(s.envelope.cg_forward < s.envelope.cg_aft))
     fail(where.any({"envelope.cg_aft", "envelope.cg_forward"}), "envelope.cg_forward, envelope.cg_aft",
          "the forward CG limit (" + keys::fmt(s.envelope.cg_forward) + ") must be ahead of, i.e. less than, the aft limit (" +

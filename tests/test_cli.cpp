@@ -73,6 +73,13 @@ TEST_CASE("bad input: a clear message and exit status 2, nothing written") {
       {"bad --set value", "", "--set mass.cg=abc", "mass.cg", "--set"},
       {"irreversible circuit asked to float", "[circuit]\nreversible = false\n", "--controls free", "irreversible",
        "held case only"},
+      {"sliding friction above the breakout", "[circuit]\nsliding_friction = \"5 N\"\n", "",
+       "circuit.sliding_friction", "at most the breakout"},
+      {"sliding friction's line", "[circuit]\nsliding_friction = \"5 N\"\n", "", "case.toml:6", "circuit.friction"},
+      {"unknown friction law", "[circuit]\nfriction_law = \"sticky\"\n", "", "circuit.friction_law", "stiction"},
+      {"negative free play", "[circuit]\nfree_play = \"-1 deg\"\n", "", "circuit.free_play", "case.toml:6"},
+      {"free play without a stick mass", "[circuit]\nfree_play = \"1 deg\"\nstick_mass = 0\n", "", "circuit.free_play",
+       "stick_mass > 0"},
   };
   for (const auto& b : cases) {
     CAPTURE(b.name);

@@ -599,6 +599,7 @@ namespace {
   X(airplane.circuit.bobweight, 3.3) X(airplane.circuit.stop_stiffness, 2.5e4)                                \
   X(airplane.circuit.stop_damping, 45.0) X(airplane.circuit.held_stiffness, 5000.0)                           \
   X(airplane.circuit.tab_min, -0.33) X(airplane.circuit.tab_max, 0.34) X(airplane.circuit.geared_tab_ratio, 0.4) \
+  X(airplane.circuit_nl.sliding_friction, 2.2) X(airplane.circuit_nl.free_play, 0.01)                         \
   X(airplane.propulsion.max_thrust, 1600.0) X(airplane.propulsion.density_exponent, 0.9)                     \
   X(airplane.propulsion.speed_exponent, -0.8) X(airplane.propulsion.reference_speed, 42.0)                    \
   X(airplane.propulsion.z_thrust, 0.07) X(airplane.propulsion.angle, 0.01)                                    \
@@ -618,6 +619,7 @@ Scenario every_field_changed() {
 #undef FP_SET
   s.airplane.wing.lift.table = {{-0.1, -0.3}, {0.0, 0.2}, {0.25, 1.3}};
   s.airplane.tail.lag = DownwashLag::chain;
+  s.airplane.circuit_nl.friction_law = FrictionLaw::smooth;
   s.trim.tab_auto = false;
   s.run.controls = ControlsChoice::free;
   s.name = "round \"trip\" \\ case";
@@ -654,6 +656,7 @@ TEST_CASE("to_toml writes every key so that reading it back gives the same scena
 #undef FP_SAME
   CHECK(r.airplane.wing.lift.table == s.airplane.wing.lift.table);
   CHECK(r.airplane.tail.lag == s.airplane.tail.lag);
+  CHECK(r.airplane.circuit_nl.friction_law == s.airplane.circuit_nl.friction_law);
   CHECK(r.airplane.circuit.reversible == s.airplane.circuit.reversible);
   CHECK(r.trim.tab_auto == s.trim.tab_auto);
   CHECK(r.run.controls == s.run.controls);

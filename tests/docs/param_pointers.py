@@ -7,7 +7,7 @@ Usage: param_pointers.py SOURCE_DIR        check the tree
                                            also show that the check refuses a wrong pointer,
                                            a missing one and a repeated range
 
-What is checked (the structs of model/airplane.hpp and scenario/scenario_types.hpp that the
+What is checked (the structs of model/airplane.hpp, model/circuit.hpp and scenario/scenario_types.hpp that the
 scenario keys fill):
   1. every field carries "// key NAME[, NAME...]" or "// not a key: ..." and nothing else that
      reads like the table (a unit in brackets, a range "(a..b)");
@@ -21,10 +21,10 @@ import sys
 import tempfile
 from pathlib import Path
 
-HEADERS = ["model/airplane.hpp", "scenario/scenario_types.hpp"]
+HEADERS = ["model/airplane.hpp", "model/circuit.hpp", "scenario/scenario_types.hpp"]
 CHECKED = {"LiftCurve", "WingBody", "Tail", "Elevator", "Circuit", "Propulsion", "MassProperties",
            "Condition", "RunSettings", "TrimSettings", "Envelope", "TurbulenceSettings",
-           "GustDesign"}
+           "GustDesign", "CircuitNonlinear"}
 FIELD = re.compile(r"^\s+(?P<type>[\w:<>, ]+?)\s+(?P<name>\w+)(\s*=\s*[^;]*)?;(?P<rest>.*)$")
 
 

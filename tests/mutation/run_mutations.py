@@ -46,11 +46,13 @@ MUTATIONS = [
     ("model/dynamics.cpp", "e.M += cross(V2{0.0, pr.z_thrust}, Ft);", "e.M -= cross(V2{0.0, pr.z_thrust}, Ft);", "sign of the thrust-line moment"),
     # circuit
     ("model/dynamics.cpp", "Hc -= ci.damping * ded", "Hc += ci.damping * ded", "sign of circuit damping"),
-    ("model/dynamics.cpp", "Hc -= (ci.friction / G)", "Hc += (ci.friction / G)", "sign of friction"),
+    ("model/dynamics.cpp", "return -(ci.friction / G) * std::tanh", "return (ci.friction / G) * std::tanh", "sign of smoothed friction"),
+    ("model/dynamics.cpp", "case FrictionState::slip_up: return -sliding_force", "case FrictionState::slip_up: return sliding_force", "sign of sliding friction"),
+    ("run/run.cpp", "if (std::abs(e.H_friction) <= Hb) ctl_.friction = FrictionState::stuck;", "if (false) ctl_.friction = FrictionState::stuck;", "stiction never sticks"),
     ("model/dynamics.cpp", "Hc -= ci.centering * (de", "Hc += ci.centering * (de", "sign of the centering spring"),
     ("model/dynamics.cpp", "Hc += ci.downspring / G;", "Hc -= ci.downspring / G;", "sign of the downspring"),
-    ("model/dynamics.cpp", "if (de > el.delta_max) Hc +=", "if (false) Hc +=", "upper stop dropped"),
-    ("model/dynamics.cpp", "if (de < el.delta_min) Hc +=", "if (false) Hc +=", "lower stop dropped"),
+    ("model/circuit.hpp", "  if (x > hi) {", "  if (false) {", "upper stop (and play end) dropped"),
+    ("model/circuit.hpp", "  if (x < lo) {", "  if (false) {", "lower stop (and play end) dropped"),
     ("model/dynamics.hpp", "return tab_setting + c.geared_tab_ratio * de;", "return tab_setting - c.geared_tab_ratio * de;", "sign of the geared tab"),
     # inertial coupling, bobweight, pilot
     ("model/dynamics.cpp", "L.h += p.m_e * cross(rho, ae);", "L.h -= p.m_e * cross(rho, ae);", "sign of the mass-balance coupling"),
