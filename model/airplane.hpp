@@ -52,7 +52,10 @@ struct Tail {
   double eta = 0.9;             // dynamic-pressure ratio q_t/q [-] (0.3..1.2)
   double eps0 = 0.0;            // downwash at zero wing angle of attack [rad] (-0.2..0.2)
   double deps_dalpha = 0.4;     // downwash gradient [-] (0..0.9)
-  DownwashLag lag = DownwashLag::first_order;  // downwash lag model
+  // downwash lag model; the default four-stage chain puts the short period within about 2 % of a
+  // pure convection delay l_wt/V, where one first-order stage is 10-15 % high in frequency
+  // (tests/reference/downwash_lag.py)
+  DownwashLag lag = DownwashLag::chain;
   int lag_stages = 4;           // stages of the chain (chain only) [-] (1..4)
   double tau_elevator = 0.5;    // elevator effectiveness dalpha_t/ddelta_e [-] (0.05..1)
   double tau_tab = 0.1;         // tab effectiveness dalpha_t/ddelta_tab [-] (0..0.5)

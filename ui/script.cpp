@@ -56,7 +56,9 @@ struct LineParser {
            fp::units::accepted_units(d) + ")");
     }
     ++next;
-    return v * *f;
+    const double si = v * *f;  // a finite number can overflow in its unit's conversion (1e308 lbf)
+    if (!std::isfinite(si)) fail(std::string(what) + " is out of range in SI units");
+    return si;
   }
   void done() const {
     if (more()) fail("unexpected \"" + words[next] + "\" at the end of the line");
