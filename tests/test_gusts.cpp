@@ -514,6 +514,31 @@ TEST_CASE("turbulence intensities and scale lengths against height") {
   CHECK(b.L_w / units::ft == Approx(1375.0));
 }
 
+TEST_CASE("turbulence intensity against altitude: every entry of the published table") {
+  // Source: MIL-F-8785C figure 7 (repeated in MIL-HDBK-1797), RMS turbulence intensity sigma
+  // (ft/s) against altitude for the probabilities of exceedance 1e-2, 1e-3 and 1e-5, as its curves
+  // are tabulated at 500 ... 45000 ft in several independent public reproductions that agree to
+  // every digit (looked up with the search tool; the figure itself was not seen). Light, moderate
+  // and severe = 1e-2, 1e-3, 1e-5 (from memory, as the key table says). Two-sided and exact to the
+  // printed digit (1e-9 relative): any entry that differs, or a row taken for another, fails.
+  const double alt_ft[] = {500, 1750, 3750, 7500, 15000, 25000, 35000, 45000};
+  const double published[3][8] = {{6.6, 6.9, 7.4, 6.7, 4.6, 2.7, 0.4, 0.0},
+                                  {8.6, 9.6, 10.6, 10.1, 8.0, 6.6, 5.0, 4.2},
+                                  {15.6, 17.6, 23.0, 23.6, 22.1, 20.0, 16.0, 15.1}};
+  const double prob[] = {1e-2, 1e-3, 1e-5};
+  for (int r = 0; r < 3; ++r)
+    for (int k = 0; k < 8; ++k) {
+      if (alt_ft[k] < 2000.0) continue;  // below 2000 ft the low-altitude model and the blend apply
+      CAPTURE(alt_ft[k]);
+      CAPTURE(prob[r]);
+      const auto l = turbulence_levels(TurbulenceModel::dryden, alt_ft[k] * units::ft, prob[r]);
+      CHECK(l.sigma_w / units::ft == Approx(published[r][k]).epsilon(1e-9).scale(1.0));
+      CHECK(l.sigma_u == Approx(l.sigma_w).epsilon(1e-12));
+    }
+  // between the tabulated altitudes the curves are read linearly (common practice)
+  CHECK(turbulence_levels(TurbulenceModel::dryden, 30000 * units::ft, 1e-5).sigma_w / units::ft == Approx(18.0));
+}
+
 // ---------------------------------------------------------------------------------------------
 // Responses
 

@@ -52,6 +52,25 @@ TEST_CASE("ISA matches the standard atmosphere table") {
   CHECK(isa_at(20000).pressure == Approx(5474.9).epsilon(1e-3));  // U.S. Std. Atm. 1976 table, 20 km geopotential
 }
 
+TEST_CASE("geometric altitude to geopotential altitude (U.S. Standard Atmosphere 1976)") {
+  // U.S. Standard Atmosphere 1976: H = r0 Z / (r0 + Z), r0 = 6356766 m (the effective Earth
+  // radius of the standard; both seen in a public reproduction of its constants). Written here
+  // the other way round, Z = r0 H / (r0 - H): the layer bases of 11 and 20 km geopotential lie
+  // at 11019.1 and 20063.1 m geometric (the standard's table of layers gives 11.019 and 20.063 km).
+  const double r0 = 6356766.0;
+  for (double H : {0.0, 1000.0, 11000.0, 20000.0}) {
+    const double Z = r0 * H / (r0 - H);
+    CAPTURE(H);
+    CHECK(geopotential_altitude(Z) == Approx(H).epsilon(1e-12).scale(1.0));
+  }
+  CHECK(r0 * 11000.0 / (r0 - 11000.0) == Approx(11019.07).epsilon(1e-6));
+  CHECK(geopotential_altitude(11019.07) == Approx(11000.0).epsilon(1e-6));
+  CHECK(geopotential_altitude(20063.1) == Approx(20000.0).epsilon(1e-5));
+  // two-sided: the correction at 3000 m geometric is 1.41 m (Z^2 / r0 to first order); a model
+  // that ignored it, or doubled it, is 1.4 m off
+  CHECK(3000.0 - geopotential_altitude(3000.0) == Approx(3000.0 * 3000.0 / (r0 + 3000.0)).epsilon(1e-9));
+}
+
 TEST_CASE("trim is an equilibrium of the full model, held and free") {
   // Definition of trim (Etkin and Reid, Dynamics of Flight, sec. 2.1): all state derivatives
   // but the kinematic ones vanish.

@@ -65,13 +65,26 @@ MUTATIONS = [
     ("model/turbulence.cpp", "f.gain = sigma * std::sqrt(L / pi);", "f.gain = sigma * std::sqrt(L);", "Dryden/von Karman w gain without 1/pi"),
     ("model/turbulence.cpp", "f.den = {1.0, 1.357, 0.1987};", "f.den = {1.0, 1.357, 0.0};", "von Karman u filter denominator"),
     ("model/atmosphere.cpp", "const double L = -0.0065;", "const double L = -0.0060;", "ISA lapse rate"),
+    # downwash lag (tests/reference/downwash_lag.py: each law against the reference's roots)
+    ("model/dynamics.cpp", "const double tau = p.l_wt / (Vsafe * nlag);", "const double tau = p.l_wt / Vsafe;", "downwash-lag stages each l_wt/V (chain N times too slow)"),
+    ("model/dynamics.cpp", "dxdt[k] = (in - x[k]) / tau;", "dxdt[k] = (x[k] - in) / tau;", "sign of the downwash-lag stage"),
+    # turbulence filters, von Karman w and Dryden u (the MIL-F-8785C forms)
+    ("model/turbulence.cpp", "f.num = {1.0, 2.7478, 0.3398};", "f.num = {1.0, 2.7478, 0.0};", "von Karman w filter numerator"),
+    ("model/turbulence.cpp", "f.den = {1.0, 2.9958, 1.9754, 0.1539};", "f.den = {1.0, 2.9958, 1.9754, 0.0};", "von Karman w filter denominator"),
+    ("model/turbulence.cpp", "f.gain = sigma * std::sqrt(2.0 * L / pi);", "f.gain = sigma * std::sqrt(L / pi);", "Dryden/von Karman u gain without the 2"),
+    ("model/turbulence.cpp", "{8.6, 9.6, 10.6, 10.1, 8.0, 6.6, 5.0, 4.2},", "{8.6, 9.6, 10.6, 10.1, 8.0, 6.6, 5.0, 4.2 * 0.0},", "turbulence intensity table, moderate, 45000 ft"),
+    ("model/turbulence.cpp", "{6.6, 6.9, 7.4, 6.7, 4.6, 2.7, 0.4, 0.0},", "{6.6, 6.9, 7.4 * 1.1, 6.7, 4.6, 2.7, 0.4, 0.0},", "turbulence intensity table, light, 3750 ft"),
+    # ISA: geopotential altitude
+    ("model/atmosphere.cpp", "return isa::earth_radius * z / (isa::earth_radius + z);", "return z;", "geometric altitude used as geopotential"),
     # closed forms (model/static.cpp)
+    ("model/static.cpp", "(at / r.lift_slope) * (1.0 - de_da) - w.cm_alpha_fus", "(at / r.lift_slope) * (1.0 + de_da) - w.cm_alpha_fus", "sign of the downwash in the stick-fixed neutral point"),
     ("model/static.cpp", "return 1.0 - tau * ap.elevator.ch_alpha / chd;", "return 1.0 + tau * ap.elevator.ch_alpha / chd;", "sign in the free-elevator factor"),
     ("model/static.cpp", "r.mp_fixed = r.np_fixed - r.cm_q / (2.0 * r.mu);", "r.mp_fixed = r.np_fixed + r.cm_q / (2.0 * r.mu);", "sign of the maneuver-point shift (fixed)"),
     ("model/static.cpp", "r.mp_free = r.np_free - r.cm_q_free / (2.0 * r.mu);", "r.mp_free = r.np_free + r.cm_q_free / (2.0 * r.mu);", "sign of the maneuver-point shift (free)"),
     ("model/static.cpp", "r.np_apparent = r.np_free + r.hinge_constant / K;", "r.np_apparent = r.np_free - r.hinge_constant / K;", "sign of the apparent neutral-point shift"),
     # trim equations
     ("model/trim.cpp", "t.theta = alpha + gamma;", "t.theta = alpha - gamma;", "trim: pitch attitude from the flight path"),
+    ("model/dynamics.cpp", "return H_aero + circuit_hinge_moment(p.ap, de, 0.0) + weight_hinge_moment(p.ap, de, n);", "return H_aero + circuit_hinge_moment(p.ap, de, 0.0);", "steady hinge moment (trim, apparent NP) without the elevator's weight"),
 ]
 
 FAST_EXCLUDE = "report_render|readme_commands|window|welch|scipy_crosscheck"

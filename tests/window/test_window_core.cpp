@@ -98,6 +98,9 @@ TEST_CASE("script: a bad line names the file and the line") {
   SUBCASE("a value that overflows in SI units") {  // found by tests/fuzz/fuzz_script.cpp
     CHECK(error_of("at 0 pulse 1e308 lbf 1 s").rfind("s.fps:1: the pilot force is out of range", 0) == 0);
   }
+  SUBCASE("a pixel position beyond float's range") {  // found by tests/fuzz/fuzz_script.cpp
+    CHECK(error_of("at 0 hover 1e300 40").rfind("s.fps:1: hover takes pixel positions", 0) == 0);
+  }
   SUBCASE("missing file") {
     std::string msg;
     try {
