@@ -267,14 +267,19 @@ TEST_CASE("sharp-edged gust with pitch fixed: the quasi-steady load-factor incre
     return std::numeric_limits<double>::quiet_NaN();
   };
   const double dn_wing = jump_at(ch_gust_w_wing), dn_tail = jump_at(ch_gust_w_tail);
-  const double f_wing = sharp_edged_gust_load(ws, a_wb, rho, c.airspeed, U);
-  const double f_tail = sharp_edged_gust_load(ws, a_t, rho, c.airspeed, U);
+  // the formula written out here (not the program's function, which is checked against it below)
+  auto formula = [&](double slope) { return rho * c.airspeed * U * slope / (2.0 * ws); };
+  const double f_wing = formula(a_wb), f_tail = formula(a_t);
   MESSAGE("sharp edge: wing " << dn_wing << " (formula " << f_wing << "), tail " << dn_tail << " (formula " << f_tail
                               << "), sum " << dn_wing + dn_tail << " (formula with a = " << a_wb + a_t << ": "
-                              << sharp_edged_gust_load(ws, a_wb + a_t, rho, c.airspeed, U) << ")");
+                              << formula(a_wb + a_t) << ")");
+  // 2 %: the jump is read between two output samples 0.5 ms apart, in which the airplane already
+  // plunges (its normal acceleration decays with time constant 2m/(rho V S a) ~ 0.4 s: 0.1 %) and
+  // the gust's change of the airspeed, sqrt(V^2 + U^2) - V, is second order (U^2/2V^2 ~ 0.07 %)
   CHECK(dn_wing == Approx(f_wing).epsilon(0.02));
   CHECK(dn_tail == Approx(f_tail).epsilon(0.02));
-  CHECK(dn_wing + dn_tail == Approx(sharp_edged_gust_load(ws, a_wb + a_t, rho, c.airspeed, U)).epsilon(0.02));
+  CHECK(dn_wing + dn_tail == Approx(formula(a_wb + a_t)).epsilon(0.02));
+  CHECK(sharp_edged_gust_load(ws, a_wb, rho, c.airspeed, U) == Approx(f_wing).epsilon(1e-12));  // the rule estimate's function
 }
 
 TEST_CASE("1-cosine gust, plunge only: against the quasi-steady plunge equation and the K_g rule") {

@@ -75,6 +75,7 @@ TEST_CASE("stick-force gradient and force per g vanish at the stick-free neutral
   const double mp = cg_zero(a, [&](const Plant& px) { return per_g(px, c, trim_free(px, c).tab).force_per_g; }, 0.3);
   const ClosedForm cf = closed_form(a, c);
   CHECK(mp > np);                                  // the maneuver point lies aft of the neutral point
+  MESSAGE("maneuver point: model " << mp << ", closed form " << cf.mp_free << ", neutral point " << np);
   CHECK(std::abs(mp - cf.mp_free) < 0.015);        // closed form leaves out the downwash-lag and q effects on the float
   Airplane at = a;
   at.mass.h_cg = mp;
@@ -120,6 +121,7 @@ TEST_CASE("constant hinge moments move the apparent stick-free point aft") {
       cg_zero(a, [&](const Plant& px) { return stick_force_gradient(px, c, trim_free(px, c).tab); }, 0.3);
   const Plant p = make_plant(a);
   const double model_aero = model_neutral_points(p, trim_free(p, c)).free;
+  MESSAGE("apparent shift: model " << model_app - model_aero << ", closed form " << cf.np_apparent - cf.np_free);
   // the model's shift agrees with the closed form's within 20 %
   CHECK((model_app - model_aero) == Approx(cf.np_apparent - cf.np_free).epsilon(0.2));
 }

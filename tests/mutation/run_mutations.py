@@ -47,6 +47,7 @@ MUTATIONS = [
     # circuit
     ("model/dynamics.cpp", "Hc -= ci.damping * ded", "Hc += ci.damping * ded", "sign of circuit damping"),
     ("model/dynamics.cpp", "Hc -= (ci.friction / G)", "Hc += (ci.friction / G)", "sign of friction"),
+    ("model/dynamics.cpp", "Hc -= (ci.friction / G) * std::tanh", "Hc -= ci.friction * std::tanh", "friction breakout taken at the hinge, not the stick"),
     ("model/dynamics.cpp", "Hc -= ci.centering * (de", "Hc += ci.centering * (de", "sign of the centering spring"),
     ("model/dynamics.cpp", "Hc += ci.downspring / G;", "Hc -= ci.downspring / G;", "sign of the downspring"),
     ("model/dynamics.cpp", "if (de > el.delta_max) Hc +=", "if (false) Hc +=", "upper stop dropped"),
