@@ -10,8 +10,16 @@ once in its file), rebuilds the test program and the command line, runs the fast
 and reverts.
 
 usage: python3 tests/mutation/run_mutations.py [--scratch DIR] [--only SUBSTRING] [--jobs N]
+       python3 tests/mutation/run_mutations.py --in-place BUILD_DIR [--only SUBSTRING] [--jobs N]
 It takes about 1.5 min a mutation on 2 cores (so about an hour for the list): not run in CI.
+
+--in-place BUILD_DIR skips the scratch copy and its full build: the mutations are applied to the
+working tree itself (the one holding this script), one at a time, and BUILD_DIR (an already built
+release build of that tree, e.g. build/) is rebuilt for each. Every mutated file is restored in a
+`finally` and on SIGTERM/SIGINT; while a mutation is applied its original is also kept beside it
+as FILE.orig-mutation, so a run killed hard (SIGKILL) can be undone by moving that file back.
 """
+import signal
 import argparse
 import os
 import shutil
@@ -103,16 +111,32 @@ def main():
     ap.add_argument("--scratch", default="/tmp/floatpitch-mutation")
     ap.add_argument("--only", default="")
     ap.add_argument("--jobs", type=int, default=2)
+    ap.add_argument("--in-place", default="", metavar="BUILD_DIR")
     a = ap.parse_args()
     src = os.path.abspath(os.path.join(os.path.dirname(__file__), "..", ".."))
-    shutil.rmtree(a.scratch, ignore_errors=True)
-    shutil.copytree(src, a.scratch, ignore=shutil.ignore_patterns(".git", "build*", "out"))
-    log = open(os.path.join(a.scratch, "mutation.log"), "w")
-    b = os.path.join(a.scratch, "build")
-    if run(f"cmake -S . -B build -DCMAKE_BUILD_TYPE=Release -DFLOATPITCH_WINDOW=OFF -DFLOATPITCH_BENCH=OFF", a.scratch, log) or \
-       run(f"cmake --build build -j{a.jobs}", a.scratch, log):
-        print("the unmutated tree does not build: see", log.name)
-        return 2
+    if a.in_place:
+        root = src
+        b = os.path.abspath(a.in_place)
+        build_arg = b
+        log = open(os.path.join(b, "mutation.log"), "w")
+        if run(f"cmake --build {b} -j{a.jobs} --target floatpitch_tests floatpitch", root, log):
+            print("the unmutated tree does not build: see", log.name)
+            return 2
+    else:
+        root = a.scratch
+        shutil.rmtree(a.scratch, ignore_errors=True)
+        shutil.copytree(src, a.scratch, ignore=shutil.ignore_patterns(".git", "build*", "out"))
+        log = open(os.path.join(a.scratch, "mutation.log"), "w")
+        b = os.path.join(a.scratch, "build")
+        build_arg = "build"
+        if run(f"cmake -S . -B build -DCMAKE_BUILD_TYPE=Release -DFLOATPITCH_WINDOW=OFF -DFLOATPITCH_BENCH=OFF", a.scratch, log) or \
+           run(f"cmake --build build -j{a.jobs}", a.scratch, log):
+            print("the unmutated tree does not build: see", log.name)
+            return 2
+
+    def stop(signum, frame):
+        raise KeyboardInterrupt(f"signal {signum}")
+    signal.signal(signal.SIGTERM, stop)
     base = run(f"ctest -j{a.jobs} -E '{FAST_EXCLUDE}'", b, log)
     if base != 0:
         print("the unmutated tree fails the fast suite: fix that first (see", log.name + ")")
@@ -121,17 +145,18 @@ def main():
     for f, old, new, what in MUTATIONS:
         if a.only and a.only not in what and a.only not in f:
             continue
-        path = os.path.join(a.scratch, f)
+        path = os.path.join(root, f)
         text = open(path).read()
         n = text.count(old)
         if n != 1:
             results.append(("stale", f, what))
             print(f"stale     {f}: {what} (text found {n} times)")
             continue
-        open(path, "w").write(text.replace(old, new))
+        shutil.copy2(path, path + ".orig-mutation")
         t0 = time.time()
         try:
-            if run(f"cmake --build build -j{a.jobs} --target floatpitch_tests floatpitch", a.scratch, log) != 0:
+            open(path, "w").write(text.replace(old, new))
+            if run(f"cmake --build {build_arg} -j{a.jobs} --target floatpitch_tests floatpitch", root, log) != 0:
                 status = "killed"  # does not compile: counts as caught, but say so
                 what_out = what + " (build failed)"
             else:
@@ -140,9 +165,10 @@ def main():
                 what_out = what
         finally:
             open(path, "w").write(text)
+            os.remove(path + ".orig-mutation")
         results.append((status, f, what_out))
         print(f"{status:9s} {f}: {what_out}  ({time.time() - t0:.0f} s)", flush=True)
-    run(f"cmake --build build -j{a.jobs} --target floatpitch_tests floatpitch", a.scratch, log)
+    run(f"cmake --build {build_arg} -j{a.jobs} --target floatpitch_tests floatpitch", root, log)
     killed = sum(1 for r in results if r[0] == "killed")
     live = [r for r in results if r[0] != "stale"]
     print(f"\nkilled {killed} of {len(live)} mutations ({100.0 * killed / max(1, len(live)):.0f} %); "
