@@ -202,7 +202,8 @@ TEST_CASE("phugoid period matches Lanchester's approximation") {
   // Damping, two-sided: with thrust independent of speed the drag alone damps the phugoid,
   // X_u = -2 D/(m V), so zeta = -X_u/(2 omega) = D/(sqrt2 m g) = 1/(sqrt2 L/D) (Nelson, Flight
   // Stability and Automatic Control, 2nd ed., sec. 4.3, the Lanchester approximation with drag;
-  // Etkin and Reid sec. 6.3). L/D by hand from the drag polar at the level-flight CL = W/(q S).
+  // Etkin and Reid sec. 6.3; section numbers from memory). L/D by hand from the drag polar at the
+  // level-flight CL = W/(q S).
   const double rho = 1.225 * std::pow(1.0 - 0.0065 * 500.0 / 288.15, 4.2559);  // ISA troposphere, h << R_earth
   const double CL = a.mass.mass * units::g0 / (0.5 * rho * V * V * a.wing.area);
   const double LD = CL / (a.wing.cd0 + a.wing.k_induced * CL * CL);
