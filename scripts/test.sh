@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # test.sh — set up on a fresh Debian 12 machine (as root), build, and run the whole test suite:
 # the unit and published-value tests (CTest), the same tests under address and undefined-
-# behaviour sanitizers, and a bounded fuzz run of the scenario loader.
+# behaviour sanitizers, and a bounded fuzz run of the parsers (scenario loader, window scripts).
 # FLOATPITCH_FUZZ_SECONDS (default 60) sets the fuzz time; FLOATPITCH_QUICK=1 skips the
 # sanitizer build and the fuzz run (for a quick local check).
 set -euo pipefail
@@ -25,7 +25,7 @@ if [[ "${FLOATPITCH_QUICK:-0}" != 1 ]]; then
   (cd build-asan && ASAN_OPTIONS=detect_leaks=0 UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
      ctest --output-on-failure -j$jobs -E 'window|readme_commands')
 
-  echo "== fuzz the scenario loader (${FLOATPITCH_FUZZ_SECONDS:-60} s)"
+  echo "== fuzz the scenario loader and the window script parser (${FLOATPITCH_FUZZ_SECONDS:-60} s in all)"
   bash tests/fuzz/run_fuzz.sh "${FLOATPITCH_FUZZ_SECONDS:-60}"
 fi
 echo "all test stages passed"

@@ -75,7 +75,13 @@ TEST_CASE("stick-force gradient and force per g vanish at the stick-free neutral
   const double mp = cg_zero(a, [&](const Plant& px) { return per_g(px, c, trim_free(px, c).tab).force_per_g; }, 0.3);
   const ClosedForm cf = closed_form(a, c);
   CHECK(mp > np);                                  // the maneuver point lies aft of the neutral point
-  CHECK(std::abs(mp - cf.mp_free) < 0.015);        // closed form leaves out the downwash-lag and q effects on the float
+  MESSAGE("maneuver point: model " << mp << ", closed form " << cf.mp_free << ", neutral point " << np);
+  // 0.008 MAC (measured 0.0053): about a tenth of the maneuver margin h'_m - h'_n (0.076 here),
+  // the size of what the closed form leaves out: it takes the free factor F and the tail volume
+  // at the straight-flight trim (V_H and Cm_delta with the arm from the CG, which moves by the
+  // margin between the two points: 0.076 c / l_t ~ 3 % of the tail terms) and drops the trim
+  // angle's geometry. (This airplane has no downwash lag: the old reason for 0.015 did not apply.)
+  CHECK(std::abs(mp - cf.mp_free) < 0.008);
   Airplane at = a;
   at.mass.h_cg = mp;
   const Plant pm = make_plant(at);
@@ -120,8 +126,11 @@ TEST_CASE("constant hinge moments move the apparent stick-free point aft") {
       cg_zero(a, [&](const Plant& px) { return stick_force_gradient(px, c, trim_free(px, c).tab); }, 0.3);
   const Plant p = make_plant(a);
   const double model_aero = model_neutral_points(p, trim_free(p, c)).free;
-  // the model's shift agrees with the closed form's within 20 %
-  CHECK((model_app - model_aero) == Approx(cf.np_apparent - cf.np_free).epsilon(0.2));
+  MESSAGE("apparent shift: model " << model_app - model_aero << ", closed form " << cf.np_apparent - cf.np_free);
+  // 10 % (measured 6 %): the closed form is first order: it evaluates Cm_delta (tail arm from the
+  // CG) at the aerodynamic point while the zero lies 0.08 MAC aft (0.08 c / l_t ~ 3 %), and the
+  // elevator weight's moment at zero deflection and level attitude (cos(delta) ~ 0.4 %)
+  CHECK((model_app - model_aero) == Approx(cf.np_apparent - cf.np_free).epsilon(0.10));
 }
 
 TEST_CASE("a tab range that cannot trim is an error naming the limit") {

@@ -56,7 +56,9 @@ struct LineParser {
            fp::units::accepted_units(d) + ")");
     }
     ++next;
-    return v * *f;
+    const double si = v * *f;  // a finite number can overflow in its unit's conversion (1e308 lbf)
+    if (!std::isfinite(si)) fail(std::string(what) + " is out of range in SI units");
+    return si;
   }
   void done() const {
     if (more()) fail("unexpected \"" + words[next] + "\" at the end of the line");
@@ -171,8 +173,11 @@ std::vector<Action> parse_script(const std::string& text, const std::string& nam
       if (a.panel < 0) p.fail("unknown panel \"" + v + "\" (use scenario, edit, inputs or analysis)");
     } else if (verb == "hover") {
       a.kind = ActionKind::hover;
-      a.x = static_cast<float>(p.number("x in pixels"));
-      a.y = static_cast<float>(p.number("y in pixels"));
+      const double x = p.number("x in pixels"), y = p.number("y in pixels");
+      // a pixel position beyond any screen (and beyond float's range: a cast would be undefined)
+      if (std::abs(x) > 1e6 || std::abs(y) > 1e6) p.fail("hover takes pixel positions within +-1e6");
+      a.x = static_cast<float>(x);
+      a.y = static_cast<float>(y);
     } else if (verb == "roots") {
       a.kind = ActionKind::roots;
       const std::string& v = p.word("airframe, all or slow");

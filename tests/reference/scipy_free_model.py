@@ -170,7 +170,7 @@ DEFAULTS = {
     "wing": {"cd0": 0.03, "k_induced": 0.05, "h_ac": 0.25, "z_ac": 0.0, "cm_ac": -0.05,
              "cm_alpha_fus": 0.0, "cm_q": -3.0, "lift_slope": 5.0, "alpha_zero": 0.0},
     "tail": {"eta": 0.9, "deps_dalpha": 0.4, "eps0": 0.0, "tau_elevator": 0.5, "tau_tab": 0.1,
-             "lift_slope": 5.0, "incidence": -0.02, "downwash_lag": "first_order"},
+             "lift_slope": 5.0, "incidence": -0.02, "downwash_lag": "chain"},
     "elevator": {"ch0": 0.0, "ch_alpha": -0.2, "ch_delta": -0.45, "ch_tab": -0.3, "ch_rate": -0.5},
     "circuit": {"gearing": 1.2, "stick_mass": 1.0, "damping": 0.0, "friction": 0.0, "centering": 0.0,
                 "downspring": 0.0, "bobweight": 0.0, "geared_tab_ratio": 0.0, "held_stiffness": 0.0},
@@ -336,7 +336,7 @@ def linear_model(P, trim, coupling=1.0, reaction=True):
     if not lag:
         Ainv, Binv = Ainv[:EPS, :EPS], Binv[:EPS]
     info = dict(V=V, alpha0=a0, theta0=th0, de0=de0, x_w=x_w, l_t=l_t, l_h=l_h, CLw0=CLw0, CLt0=CLt0,
-                Ch_trim=Ch_trim, Lt0=Lt0, D0=D0,
+                Ch_trim=Ch_trim, Lt0=Lt0, D0=D0, E=E.copy(), A=A.copy(),  # before E is inverted
                 residual=dict(  # trim residuals of this script's own force laws (should be ~0)
                     X=-D0 + P("propulsion", "max_thrust") * trim["throttle"] * math.cos(a0) - m * G0 * math.sin(th0 - a0),
                     Z=-(Lw0 + Lt0) - P("propulsion", "max_thrust") * trim["throttle"] * math.sin(a0)

@@ -65,6 +65,21 @@ for comp, channel in (("w", "gust_w_wing"), ("u", "gust_u_wing")):
     Om = 2 * math.pi * f / V
     Phi = S * V / (2 * math.pi)
     n_avg = (len(y) - nseg) // (nseg // 2) + 1
+    # the check can tell a scale length 30 % off (the example of an error to catch): the
+    # same bands against the published spectrum with L x 1.3 and L / 1.3 must each miss in at
+    # least one band (at high Omega L the Dryden spectra go as 1/L: a 30 % miss)
+    for wrong in (1.3, 1 / 1.3):
+        missed = False
+        for lo, hi in ((0.5, 1.0), (1.0, 2.0), (2.0, 4.0), (4.0, 10.0)):
+            sel = (Om * L >= lo) & (Om * L < hi) & (np.arange(len(Om)) >= 3)
+            nb = int(sel.sum())
+            if nb == 0:
+                continue
+            r = Phi[sel].sum() / sum(dryden(comp, sigma, L * wrong, o) for o in Om[sel])
+            missed |= abs(r - 1) >= 4 / math.sqrt(0.9 * n_avg * nb) + 0.05
+        checks += 1
+        failures += not missed
+        print(f"{comp}: with the scale length x {wrong:.3f} the bands {'miss: the check can tell' if missed else 'STILL PASS: the check cannot tell'}")
     for lo, hi in ((0.5, 1.0), (1.0, 2.0), (2.0, 4.0), (4.0, 10.0)):
         sel = (Om * L >= lo) & (Om * L < hi) & (np.arange(len(Om)) >= 3)
         nb = int(sel.sum())

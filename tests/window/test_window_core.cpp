@@ -6,6 +6,7 @@
 #include <algorithm>
 #include <cmath>
 #include <string>
+#include <vector>
 
 #include "model/units.hpp"
 #include "scenario/scenario.hpp"
@@ -94,6 +95,12 @@ TEST_CASE("script: a bad line names the file and the line") {
   SUBCASE("words left over") { CHECK(error_of("at 1 let_go now").rfind("s.fps:1: unexpected \"now\"", 0) == 0); }
   SUBCASE("zero gust length") { CHECK(error_of("at 1 gust ramp 5 m/s 0 m").rfind("s.fps:1: the gust length", 0) == 0); }
   SUBCASE("speed out of range") { CHECK(error_of("at 0 speed 100").rfind("s.fps:1: the speed factor", 0) == 0); }
+  SUBCASE("a value that overflows in SI units") {  // found by tests/fuzz/fuzz_script.cpp
+    CHECK(error_of("at 0 pulse 1e308 lbf 1 s").rfind("s.fps:1: the pilot force is out of range", 0) == 0);
+  }
+  SUBCASE("a pixel position beyond float's range") {  // found by tests/fuzz/fuzz_script.cpp
+    CHECK(error_of("at 0 hover 1e300 40").rfind("s.fps:1: hover takes pixel positions", 0) == 0);
+  }
   SUBCASE("missing file") {
     std::string msg;
     try {
@@ -392,6 +399,17 @@ TEST_CASE("bridge: a key tap within one frame is seen as pressed") {
   t.text.unicode = 'x';
   sf::Event bs = t;
   bs.text.unicode = 8;  // backspace arrives as a key, not as text
-  f.frame({t, bs}, [] { return 0; });
-  CHECK(ImGui::GetIO().InputQueueCharacters.Size == 0);  // consumed by the frame that got them
+  sf::Event del = t;
+  del.text.unicode = 127;  // delete likewise
+  sf::Event y = t;
+  y.text.unicode = 'y';
+  // what the frame's widgets see in the character queue (ImGui empties it at the end of every
+  // frame, so it is read inside the frame): the printable characters, in order, nothing else
+  auto queue = [] {
+    std::vector<unsigned> q;
+    for (int i = 0; i < ImGui::GetIO().InputQueueCharacters.Size; ++i) q.push_back(ImGui::GetIO().InputQueueCharacters[i]);
+    return q;
+  };
+  CHECK(f.frame({t, bs, del, y}, queue) == std::vector<unsigned>{'x', 'y'});
+  CHECK(f.frame({}, queue).empty());  // and the next frame does not see them again
 }
