@@ -411,6 +411,27 @@ void eigen_side(const Scenario& base, const std::vector<double>& cg, const std::
   }, true, 100);
   b.eigenvalue = c.cg;
   if (!c.error.empty()) err += "eigenvalue: " + c.error + ". ";
+  if (!std::isfinite(c.cg) && c.error.empty()) {
+    // no crossing: say what the sign is over the range, and over which CGs there was no root
+    // to read (a point that does not trim, or, free, no hands-off trim with a fixed tab)
+    int neg = 0, pos = 0;
+    double lo = nan_, hi = nan_;
+    for (std::size_t i = 0; i < cg.size(); ++i) {
+      if (!std::isfinite(ev[i])) continue;
+      (ev[i] <= 0 ? neg : pos) += 1;
+      if (!std::isfinite(lo)) lo = cg[i];
+      hi = cg[i];
+    }
+    const int missing = static_cast<int>(cg.size()) - neg - pos;
+    std::string where = std::isfinite(lo) ? "from " + fixed(100 * lo, 2) + " to " + fixed(100 * hi, 2) + " % MAC" : "";
+    if (neg > 0 && pos == 0) b.no_crossing = "stable at every CG linearised, " + where;
+    else if (pos > 0 && neg == 0) b.no_crossing = "unstable at every CG linearised, " + where + ": the boundary lies forward of the range";
+    else if (neg > 0) b.no_crossing = "the deciding root changes sign only from + to - over the range (" + where + ")";
+    else b.no_crossing = "no CG of the range could be linearised";
+    if (missing > 0 && (neg > 0 || pos > 0))
+      b.no_crossing += "; " + std::to_string(missing) + " of " + std::to_string(cg.size()) +
+                       " CGs gave no root (see the reasons in sweep.csv)";
+  }
   const Crossing sc = crossing(cg, st, [&](double x) { return static_at(base, x, free); }, true, 100);
   b.static_crossing = sc.cg;
   if (!sc.error.empty()) err += "static crossing: " + sc.error + ". ";

@@ -108,6 +108,9 @@ struct Boundary {
   std::string static_mode;           // the real root's mode just aft of the static crossing
   std::string set_aside;             // roots set aside there, with the reason
   std::string time_domain_check;     // whether the time-domain boundary holds for tenfold settings
+  std::string no_crossing;           // when the deciding root crosses nowhere in the range: stable
+                                     // (or unstable) at every CG that could be linearised, and where
+                                     // it could not ("" when it crosses)
   std::string error;                 // why a method failed ("" when none did)
 };
 

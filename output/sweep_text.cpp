@@ -173,7 +173,7 @@ json sweep_json(const SweepResult& r) {
              {"first_crossing_mode", text(x.crossing_mode)},
              {"first_crossing_oscillatory", std::isfinite(x.eigenvalue) ? json(x.crossing_oscillatory) : json(nullptr)},
              {"first_crossing_period_s", num(x.crossing_period)}, {"time_domain", num(x.time_domain)},
-             {"closed_form_applies", x.closed_form_applies}, {"closed_form_note", text(x.closed_form_note)},
+             {"closed_form_applies", x.closed_form_applies}, {"closed_form_note", text(x.closed_form_note)}, {"no_crossing", text(x.no_crossing)},
              {"crossing_mode", text(x.crossing_mode)}, {"roots_set_aside", text(x.set_aside)},
              {"time_domain_check", text(x.time_domain_check)}, {"error", text(x.error)},
              {"spread_static", num(sp.closed_vs_static)}, {"spread_dynamic", num(sp.first_vs_time)},
@@ -305,6 +305,7 @@ std::string sweep_table(const SweepResult& r) {
         o << "  " << name << ": the first root to cross zero is the " << b->crossing_mode << "\n";
       if (!b->static_mode.empty())
         o << "  " << name << ": the real root that crosses at the static crossing is the " << b->static_mode << "\n";
+      if (!b->no_crossing.empty()) o << "  " << name << ": no crossing: " << b->no_crossing << "\n";
       if (!b->closed_form_note.empty()) o << "  " << name << ": NOTE " << b->closed_form_note << "\n";
       if (!b->set_aside.empty()) o << "  " << name << ": " << b->set_aside << "\n";
       if (!b->time_domain_check.empty()) o << "  " << name << ": time domain " << b->time_domain_check << "\n";

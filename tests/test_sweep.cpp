@@ -122,3 +122,21 @@ TEST_CASE("bad sweep specifications are errors") {
   CHECK_THROWS_AS(parse_vary(base, "wing.aera=1:2:0.5"), ScenarioError);
   CHECK_THROWS_AS(parse_sample(base, "elevator.ch_alpha=gamma(1,2)"), ScenarioError);
 }
+
+TEST_CASE("a sweep with no crossing says which sign the deciding root keeps, and where no root was read") {
+  // Forward of the closed-form stick-free point (Etkin and Reid sec. 2.4-2.6, model/static.hpp)
+  // by more than 0.05 MAC the airplane is statically stable held and free, so a sweep there
+  // must report no crossing as "stable at every CG" (common practice: a static margin of 5 %
+  // MAC leaves the phugoid and short period stable on a conventional airplane).
+  const SweepResult r = run_sweep(cg_sweep(kLinear, 0.20, 0.30, 0.05), 2, false);
+  REQUIRE(r.has_boundary);
+  REQUIRE(r.free.closed_form > 0.35);
+  for (const Boundary* b : {&r.held, &r.free}) {
+    CHECK_FALSE(std::isfinite(b->eigenvalue));
+    CHECK(b->no_crossing.rfind("stable at every CG linearised, from 20.00 to 30.00 % MAC", 0) == 0);
+  }
+  // a crossing leaves the note empty
+  const SweepResult c = run_sweep(cg_sweep(kLinear, 0.40, 0.54, 0.02), 2, false);
+  CHECK(std::isfinite(c.held.eigenvalue));
+  CHECK(c.held.no_crossing.empty());
+}
