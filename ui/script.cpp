@@ -205,8 +205,10 @@ std::vector<Action> load_script(const std::string& path) {
 }
 
 std::string action_line(const Action& a) {
-  char t[32];
-  std::snprintf(t, sizeof t, "at %.3f ", a.time);
+  // milliseconds as the window logs them; a time too large for that (a script may name any
+  // finite time) in exponent form, which the parser reads back (%.3f of 1e75 would not fit)
+  char t[48];
+  std::snprintf(t, sizeof t, a.time < 1e9 ? "at %.3f " : "at %.6e ", a.time);
   std::string s = t;
   switch (a.kind) {
     case ActionKind::let_go: return s + "let_go";

@@ -138,6 +138,15 @@ TEST_CASE("script: the session log reads back to the same actions") {
   CHECK(back[1].value == doctest::Approx(-35.0));
   CHECK(back[1].duration == doctest::Approx(0.75));
   CHECK(back[2].value == doctest::Approx(-0.05).epsilon(1e-5));
+  // a legal but huge time (found by tests/fuzz/fuzz_script.cpp: "%.3f" of it did not fit the
+  // line buffer, and the log could not be read back) comes back as the same time
+  Action late;
+  late.time = 3.3e75;
+  late.kind = ActionKind::let_go;
+  const auto far = parse_script(action_line(late) + "\n", "log");
+  REQUIRE(far.size() == 1);
+  CHECK(far[0].kind == ActionKind::let_go);
+  CHECK(far[0].time == doctest::Approx(3.3e75).epsilon(1e-6));
 }
 
 TEST_CASE("plot: ticks are round and cover the range") {
