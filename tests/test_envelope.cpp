@@ -26,38 +26,19 @@
 #include "scenario/matrix_case.hpp"
 #include "scenario/scenario.hpp"
 
-#include <sys/wait.h>
+#include "shell.hpp"  // after the project's headers (see there)
 
 namespace fs = std::filesystem;
 
 namespace {
 
+using fp::test::Out;
+using fp::test::shell;
+using fp::test::slurp;
+
 const std::string kExe = std::string(FP_BINARY_DIR) + "/floatpitch";
 const std::string kSrc = FP_SOURCE_DIR;
 const std::string kAft = kSrc + "/scenarios/orvane_aft_cg.toml";
-
-struct Out {
-  int status = -1;
-  std::string text;
-};
-
-Out shell(const std::string& cmd) {
-  Out r;
-  FILE* p = ::popen((cmd + " 2>&1").c_str(), "r");
-  REQUIRE(p != nullptr);
-  std::array<char, 4096> buf{};
-  while (std::fgets(buf.data(), buf.size(), p)) r.text += buf.data();
-  const int st = ::pclose(p);
-  r.status = WIFEXITED(st) ? WEXITSTATUS(st) : -1;
-  return r;
-}
-
-std::string slurp(const fs::path& p) {
-  std::ifstream f(p, std::ios::binary);
-  std::ostringstream ss;
-  ss << f.rdbuf();
-  return ss.str();
-}
 
 // Bit-for-bit equality of two doubles (NaN equal to NaN of the same bits).
 bool same(double a, double b) { return std::memcmp(&a, &b, sizeof a) == 0; }

@@ -23,31 +23,19 @@
 #include "util/sha256.hpp"
 #include "report/svg.hpp"
 
-#include <sys/wait.h>  // after the project's headers: <signal.h> defines si_value as a macro
+#include "shell.hpp"  // after the project's headers (see there)
 
 namespace fs = std::filesystem;
 
 namespace {
 
+using fp::test::Out;
+using fp::test::shell;
+using fp::test::slurp;
+
 const std::string kExe = std::string(FP_BINARY_DIR) + "/floatpitch";
 const std::string kSrc = FP_SOURCE_DIR;
 const std::string kAft = kSrc + "/scenarios/orvane_aft_cg.toml";
-
-struct Out {
-  int status = -1;
-  std::string text;  // stdout and stderr together
-};
-
-Out shell(const std::string& cmd) {
-  Out r;
-  FILE* p = ::popen((cmd + " 2>&1").c_str(), "r");
-  REQUIRE(p != nullptr);
-  std::array<char, 4096> buf{};
-  while (std::fgets(buf.data(), buf.size(), p)) r.text += buf.data();
-  const int st = ::pclose(p);
-  r.status = WIFEXITED(st) ? WEXITSTATUS(st) : -1;
-  return r;
-}
 
 Out report(const std::string& args, const std::string& env = "") { return shell(env + " " + kExe + " report " + args); }
 
@@ -56,13 +44,6 @@ fs::path temp_dir(const std::string& name) {
   fs::remove_all(d);
   fs::create_directories(d);
   return d;
-}
-
-std::string slurp(const fs::path& p) {
-  std::ifstream f(p, std::ios::binary);
-  std::ostringstream s;
-  s << f.rdbuf();
-  return s.str();
 }
 
 // GNU coreutils' sha256sum of a file: an implementation independent of ours.
